@@ -1,0 +1,51 @@
+"""Typed errors of the engine.
+
+Every error carries a plain one-line message that a user can act on; the CLI
+prints it without a traceback and the GUI shows it beside the field.
+"""
+from __future__ import annotations
+
+
+class RatingError(Exception):
+    """Base class of every error the engine raises on purpose."""
+
+
+class InputError(RatingError, ValueError):
+    """An input is missing, of the wrong kind or outside its allowed range.
+
+    ``field`` is the path of the offending input (``cases[0].tubes.outer_diameter``)
+    when one is known.
+    """
+
+    def __init__(self, message: str, field: str | None = None):
+        super().__init__(message)
+        self.field = field
+
+
+class ProjectFileError(InputError):
+    """A project file cannot be read: corrupt, truncated, foreign or too new."""
+
+
+class PropertyError(RatingError, ValueError):
+    """A fluid property could not be evaluated (unknown fluid, state outside range)."""
+
+    def __init__(self, message: str, fluid: str | None = None, state: dict | None = None):
+        super().__init__(message)
+        self.fluid = fluid
+        self.state = dict(state or {})
+
+
+class UnknownFluidError(PropertyError):
+    """The fluid name is not known to the property library."""
+
+
+class SupercriticalError(PropertyError):
+    """The pressure is at or above the critical pressure: there is no boiling."""
+
+
+class OutOfRangeError(PropertyError):
+    """A temperature or pressure lies outside the fluid's valid range."""
+
+
+class ConvergenceError(RatingError):
+    """A numerical solution could not be found (no bracket, no convergence)."""
