@@ -21,9 +21,38 @@ class InputError(RatingError, ValueError):
         super().__init__(message)
         self.field = field
 
+    def prefixed(self, path: str) -> "InputError":
+        """The same error with ``path`` put in front of its field and its message.
+
+        ``InputError("outer_diameter = -0.02 m: must be > 0", "outer_diameter")
+        .prefixed("cases[0].tubes")`` reads ``cases[0].tubes.outer_diameter = -0.02 m:
+        must be > 0``. An empty path returns the error unchanged.
+        """
+        if not path:
+            return self
+        message = str(self)
+        if self.field:
+            field = _join(path, self.field)
+            if message.startswith(self.field):
+                message = field + message[len(self.field):]
+            else:
+                message = f"{field}: {message}"
+        else:
+            field = path
+            message = f"{path}: {message}"
+        new = type(self).__new__(type(self))
+        new.__dict__.update(self.__dict__)
+        InputError.__init__(new, message, field)
+        new.__cause__ = self.__cause__
+        return new
+
+
+def _join(path: str, field: str) -> str:
+    return path + field if field.startswith("[") else f"{path}.{field}"
+
 
 class ProjectFileError(InputError):
-    """A project file cannot be read: corrupt, truncated, foreign or too new."""
+    """A project file cannot be read (corrupt, truncated, foreign, too new) or written."""
 
 
 class PropertyError(RatingError, ValueError):

@@ -6,8 +6,9 @@ offers (``methods``), the method trail of a result and the documentation all
 derive from these records; there is no second list anywhere.
 
 Validity ranges are keyed by an argument name of the function or by one of the
-derived groups in ``DERIVED`` (reduced pressure, Reynolds and Prandtl numbers)
-so that a range can be checked from the same inputs the function receives.
+derived groups in ``DERIVED`` (reduced pressure, Reynolds, Prandtl and
+Rayleigh numbers, reduced cylinder radius, bundle geometry factor) so that a
+range can be checked from the same inputs the function receives.
 """
 from __future__ import annotations
 
@@ -15,6 +16,8 @@ import inspect
 import math
 from dataclasses import dataclass, field
 from typing import Callable, Mapping
+
+from .dimensionless import g
 
 #: Families of methods. The name is what ``methods(family)`` takes.
 FAMILIES = {
@@ -31,6 +34,9 @@ FAMILIES = {
     "shell_side": "Shell-side single-phase coefficient and pressure drop",
     "flow_pattern": "Two-phase flow pattern",
     "mixture": "Mixture correction of the nucleate boiling coefficient",
+    "natural_convection": "Natural convection on a surface",
+    "subcooled_boiling": "Subcooled flow boiling (wall temperature)",
+    "post_dryout": "Post-dryout (dispersed-flow) coefficient",
 }
 
 
@@ -50,12 +56,43 @@ def _pr_l(a):
     return a["cp_l"] * a["mu_l"] / a["k_l"]
 
 
+def _r_prime(a):
+    # cylinder radius over the capillary length (Lienhard & Dhir 1973)
+    return 0.5 * a["D"] * math.sqrt(g * (a["rho_l"] - a["rho_v"]) / a["sigma"])
+
+
+def _ra_d(a):
+    return (g * abs(a["beta"] * a["dT"]) * a["D"] ** 3 * a["rho"] ** 2 * a["cp"]
+            / (a["mu"] * a["k"]))
+
+
+def _phi_b(a):
+    # Palen's bundle geometry factor before its cap at 1
+    return 2.2 * math.pi * a["bundle_diameter"] * a["tube_length"] / a["area"]
+
+
+def _re_shell(a):
+    # Bell-Delaware crossflow Reynolds number (a shell_side.ShellGeometry)
+    return a["shell"].reynolds_crossflow(a["m_dot"], a["mu"])
+
+
+def _re_kern(a):
+    # Kern's Reynolds number on the equivalent diameter
+    return a["shell"].reynolds_kern(a["m_dot"], a["mu"])
+
+
 #: Derived groups that a validity range may name: (needed arguments, function).
 DERIVED: dict[str, tuple[tuple[str, ...], Callable[[Mapping], float]]] = {
     "p_r": (("P", "P_crit"), _reduced_pressure),
     "Re_lo": (("G", "D", "mu_l"), _re_lo),
     "Re_l": (("G", "x", "D", "mu_l"), _re_l),
     "Pr_l": (("cp_l", "mu_l", "k_l"), _pr_l),
+    "R_prime": (("D", "rho_l", "rho_v", "sigma"), _r_prime),
+    "Ra_D": (("D", "dT", "rho", "mu", "k", "cp", "beta"), _ra_d),
+    "Phi_b": (("bundle_diameter", "tube_length", "area"), _phi_b),
+    "Re_shell": (("m_dot", "mu", "shell"), _re_shell),
+    "Re_kern": (("m_dot", "mu", "shell"), _re_kern),
+    "baffle_cut": (("shell",), lambda a: a["shell"].baffle_cut),
 }
 
 
@@ -94,14 +131,16 @@ class Method:
         return self.references[0] if self.references else ""
 
     def __call__(self, available: Mapping[str, float], **options):
-        """Call the function with the inputs it needs taken from ``available``."""
+        """Call the function with the inputs it needs taken from ``available``.
+
+        Options are passed only explicitly: a name in ``available`` never turns
+        into an option by accident (``roughness`` means different things to
+        different methods).
+        """
         try:
             args = {n: available[n] for n in self.inputs}
         except KeyError as exc:  # a programming error, not a user error
             raise KeyError(f"{self.name} needs {exc.args[0]!r}") from None
-        for n in self.options:
-            if n in available and n not in options:
-                options[n] = available[n]
         return self.function(**args, **options)
 
     def out_of_range(self, available: Mapping[str, float]) -> list[str]:

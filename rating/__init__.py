@@ -1,0 +1,43 @@
+"""Ebullio's rating engine: evaporators and reboilers rated by marching along the
+heated length with local boiling coefficients.
+
+    >>> import rating
+    >>> project = rating.load_project("samples/chiller-evaporator.ebullio")  # doctest: +SKIP
+    >>> result = rating.rate(project.cases[0])                               # doctest: +SKIP
+    >>> result.status, result.summary["duty_W"]                              # doctest: +SKIP
+
+Results are engineering estimates to be checked by a qualified engineer under
+local codes and licensed practice.
+"""
+from __future__ import annotations
+
+__version__ = "0.1.0"
+
+from .case import (BoilingStream, Case, HeatingMedium, Limits, Methods, Project, Shell,  # noqa: F401
+                   Tubes)
+from .errors import InputError, ProjectFileError, PropertyError, RatingError  # noqa: F401
+from .results import Result  # noqa: F401
+
+
+def load_project(path):
+    """Read and validate a project file; refuses a corrupt or foreign file with one line."""
+    from .project import load_project as _load
+    return _load(path)
+
+
+def save_project(project, path):
+    """Write a project file atomically (temporary file, fsync, rename)."""
+    from .project import save_project as _save
+    return _save(project, path)
+
+
+def rate(case, *, increments=None, progress=None, cancel=None) -> Result:
+    """Rate one case and return a result that carries its status.
+
+    ``progress(fraction)`` is called as the march advances; ``cancel()`` is
+    polled between increments and, when it returns True, the rating stops with a
+    "failed" result that says it was cancelled. Input errors raise ``InputError``
+    before any rating starts (they are found when the case is built).
+    """
+    from .exchangers import rate_case
+    return rate_case(case, increments=increments, progress=progress, cancel=cancel)

@@ -1,0 +1,136 @@
+"""Limits and warnings from a finished march.
+
+Every threshold is a user-editable field of ``rating.case.Limits``; its default
+and its source are listed in ``LIMIT_SOURCES`` so that the GUI and the report
+can show where a number comes from. Warning codes are Ebullio's own.
+"""
+from __future__ import annotations
+
+import math
+
+from .correlations import registry
+from .results import RatingWarning
+
+#: Default, unit and source of every editable threshold.
+LIMIT_SOURCES = {
+    "chf_ratio": (0.7, "-", "Keep the local heat flux below about 0.7 of the critical heat flux "
+                  "(common practice; Sinnott, Coulson & Richardson Vol. 6, applies a 0.7 factor "
+                  "to the Palen-Small maximum flux)"),
+    "critical_quality": (None, "-", "User limit on the vapour quality at which dryout is "
+                         "assumed; none by default (the critical heat flux decides)"),
+    "min_nucleate_flux": (6300.0, "W/m^2", "Boiling stays nucleate when the flux is at least "
+                          "about 2000 Btu/h ft^2 (6.3 kW/m^2) everywhere: 'Reboilers General "
+                          "Guidelines', rules-of-thumb handbook"),
+    "min_temperature_approach": (3.0, "K", "Smallest local difference between heating medium and "
+                                 "boiling fluid before a pinch is reported (common practice)"),
+    "kern_flux_cap": (None, "W/m^2", "Kern (1950), Process Heat Transfer ch. 15: 37.9 kW/m^2 "
+                      "natural circulation with organics, 63 kW/m^2 forced circulation with "
+                      "organics, 95 kW/m^2 aqueous; a screening cap, off by default"),
+}
+
+# Pool critical heat flux used for the critical wall superheat: Lienhard & Dhir (1973).
+_POOL_CHF_K = 0.149
+
+
+def critical_superheat(sat, nucleate_method: str) -> float:
+    """Wall superheat at which nucleate pool boiling reaches the pool critical heat flux [K].
+
+    q_max from Zuber's hydrodynamic form with Lienhard & Dhir's constant 0.149;
+    the superheat is q_max / htc_nb(q_max) with the chosen nucleate method. Beyond it
+    the boiling curve turns towards transition and film boiling.
+    """
+    q_max = (_POOL_CHF_K * sat.h_lv * math.sqrt(sat.rho_v)
+             * (sat.sigma * 9.80665 * (sat.rho_l - sat.rho_v)) ** 0.25)
+    avail = sat.as_dict()
+    avail["q"] = q_max
+    htc = registry.get(nucleate_method)(avail)
+    return q_max / htc
+
+
+def evaluate(case, outcome, *, fluid, service: str = "evaporator") -> list[RatingWarning]:
+    """Warnings for a finished march (``outcome`` from ``rating.march``)."""
+    lim = case.limits
+    st = outcome.stations
+    out: list[RatingWarning] = []
+    if not st:
+        return out
+
+    # Dryout inside the tube.
+    if outcome.dryout_z is not None:
+        s = _first(st, lambda s: s.regime in ("post-dryout", "superheated vapour")) or st[-1]
+        by = ("the critical quality" if lim.critical_quality is not None
+              and s.x >= lim.critical_quality else "the critical heat flux")
+        severity = "error" if s.x < 0.0 else "warning"
+        out.append(RatingWarning(
+            "dryout", severity,
+            f"dryout starts at z = {outcome.dryout_z:.3f} m (quality {max(s.x, 0.0):.3f}) where "
+            f"{by} is reached; downstream the wall is vapour-cooled and its temperature rises "
+            f"to {max(t.T_wall_inner for t in st):.1f} K", outcome.dryout_z))
+
+    # Heat flux close to critical before dryout.
+    wet = [s for s in st if s.regime in ("subcooled liquid", "subcooled boiling", "saturated boiling")]
+    if wet:
+        worst = max(wet, key=lambda s: s.chf_ratio)
+        if worst.chf_ratio > lim.chf_ratio and outcome.dryout_z is None:
+            out.append(RatingWarning(
+                "chf-margin", "warning",
+                f"local heat flux {worst.q:.4g} W/m^2 is {worst.chf_ratio:.2f} of the critical "
+                f"heat flux {worst.q_chf:.4g} W/m^2 (limit {lim.chf_ratio:.2f})", worst.z))
+
+    # Wall superheat in the film-boiling range (before dryout: after it the jump is expected).
+    boiling = [s for s in wet if s.regime != "subcooled liquid" and s.q > 0.0]
+    for s in boiling:
+        dT_crit = critical_superheat(fluid.saturation(s.P), case.methods.nucleate_boiling)
+        if s.wall_superheat > dT_crit:
+            out.append(RatingWarning(
+                "film-boiling-superheat", "warning",
+                f"wall superheat {s.wall_superheat:.1f} K exceeds the critical superheat "
+                f"{dT_crit:.1f} K of nucleate boiling: transition or film boiling is possible; "
+                "a cooler or co-current heating medium, or lower steam pressure, would help", s.z))
+            break
+
+    # Heat flux below the minimum for stable nucleate boiling.
+    nucleate = [s for s in boiling if s.regime in ("subcooled boiling", "saturated boiling")]
+    if nucleate:
+        low = min(nucleate, key=lambda s: s.q)
+        if low.q < lim.min_nucleate_flux:
+            severity = "info" if service == "evaporator" else "warning"
+            out.append(RatingWarning(
+                "low-flux", severity,
+                f"heat flux falls to {low.q:.4g} W/m^2, below {lim.min_nucleate_flux:.4g} W/m^2 "
+                "for stable nucleate boiling", low.z))
+
+    # Temperature cross or pinch.
+    approach = [(s.T_heating - s.T_process, s) for s in st]
+    d_min, s_min = min(approach, key=lambda a: a[0])
+    if d_min <= 0.0:
+        out.append(RatingWarning(
+            "temperature-cross", "error",
+            f"the heating medium is {-d_min:.2f} K colder than the boiling fluid: no heat "
+            "transfer beyond this point", s_min.z))
+    elif d_min < lim.min_temperature_approach:
+        out.append(RatingWarning(
+            "pinch", "warning",
+            f"temperature approach falls to {d_min:.2f} K (limit "
+            f"{lim.min_temperature_approach:.2f} K)", s_min.z))
+
+    # Kern's screening cap, if the user set one.
+    if lim.kern_flux_cap is not None:
+        top = max(st, key=lambda s: s.q_outer)
+        if top.q_outer > lim.kern_flux_cap:
+            out.append(RatingWarning(
+                "kern-cap", "warning",
+                f"heat flux {top.q_outer:.4g} W/m^2 above the Kern limit "
+                f"{lim.kern_flux_cap:.4g} W/m^2 (a screening cap, not a CHF prediction)", top.z))
+
+    # Correlations used outside their range.
+    for msg, z in outcome.range_notes.items():
+        out.append(RatingWarning("method-range", "warning", msg + f" (first at z = {z:.3f} m)", z))
+    return out
+
+
+def _first(seq, pred):
+    for s in seq:
+        if pred(s):
+            return s
+    return None

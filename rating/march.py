@@ -1,0 +1,545 @@
+"""March along the heated length of a boiling tube.
+
+The state at a station z is the boiling-side pressure P and specific enthalpy h
+(quality or subcooling follow from them) and the heating-medium state. Over an
+increment the local heat flux is found from the series resistances (heating
+film, fouling, wall, fouling, boiling film) by a bracketed scalar root on the
+heat flux, the energy balance moves h and the heating medium by the same duty,
+and the momentum balance (friction, acceleration, gravity) moves P so that the
+saturation temperature follows the local pressure.
+
+Integration is by the explicit midpoint rule (second order): the flux of an
+increment is evaluated at its middle. The boiling side and the heating side
+exchange exactly the same duty in every increment, so the energy balance closes
+to the precision of the property inversions, whatever the increment count.
+
+Regimes along the tube, decided from the bulk state (never from a trial flux):
+subcooled liquid (single phase, then subcooled boiling once the wall passes the
+saturation temperature: Liu-Winterton 1991), saturated flow boiling (the chosen
+method), post-dryout (Dougall-Rohsenow 1963: a flow-boiling correlation is
+never extrapolated past dryout) and superheated vapour. Dryout starts where the
+local flux reaches the local critical heat flux, or the quality reaches the
+critical quality (a user limit, or the Wojtan et al. 2005 dryout onset in
+horizontal tubes), whichever comes first; there is no rewetting downstream.
+
+Nothing here raises for a physical reason: a step that cannot be solved ends
+the march with a status and a message (``MarchOutcome``).
+"""
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass, field
+from typing import Callable
+
+from scipy.optimize import brentq
+
+from .correlations import registry
+from .correlations.dimensionless import g
+from .correlations.flow_boiling import flow_boiling_htc
+from .correlations.single_phase import htc_tube_single_phase
+from .errors import PropertyError
+
+REGIMES = ("subcooled liquid", "subcooled boiling", "saturated boiling",
+           "post-dryout", "superheated vapour")
+
+
+class Cancelled(Exception):
+    """Raised inside the march when the caller's cancel flag is set."""
+
+
+@dataclass(frozen=True, slots=True)
+class Station:
+    """Local values at one station along the heated length (SI)."""
+
+    z: float
+    P: float
+    h: float
+    T_sat: float
+    T_process: float
+    T_heating: float
+    T_wall_inner: float
+    T_wall_outer: float
+    x: float
+    void_fraction: float
+    q: float               # heat flux at the inner (boiling) surface [W/m^2]
+    q_outer: float         # heat flux at the outer surface [W/m^2]
+    htc_boiling: float
+    htc_nucleate: float
+    htc_convective: float
+    htc_heating: float
+    u_service: float       # local U on the outer area, fouled [W/m^2/K]
+    u_clean: float         # local U on the outer area, no fouling [W/m^2/K]
+    q_chf: float
+    chf_ratio: float
+    regime: str
+    flow_pattern: str
+    wall_superheat: float
+    duty: float            # cumulative duty from z = 0 [W]
+    dpdz_friction: float
+
+
+@dataclass
+class BoilingTube:
+    """Everything the march needs about the tube and the boiling fluid."""
+
+    fluid: object                 # rating.properties.Fluid
+    D_i: float
+    D_o: float
+    wall_conductivity: float
+    roughness: float
+    vertical: bool
+    mass_flow_per_tube: float
+    tubes_in_parallel: int        # tubes that share one path position
+    fouling_inner: float
+    fouling_outer: float
+    flow_boiling: str
+    nucleate_boiling: str
+    two_phase_friction: str
+    void_fraction: str
+    tube_dryout: str
+    single_phase_tube: str
+    critical_quality: float | None = None
+    flow_pattern_method: str | None = None
+    flow_boiling_options: dict = field(default_factory=dict)  # fluid-specific constants
+
+    @property
+    def G(self) -> float:
+        return self.mass_flow_per_tube / (math.pi * self.D_i**2 / 4.0)
+
+    @property
+    def wall_resistance_inner(self) -> float:
+        """Wall conduction resistance referred to the inner area [m^2K/W]."""
+        return self.D_i * math.log(self.D_o / self.D_i) / (2.0 * self.wall_conductivity)
+
+
+@dataclass
+class MarchOutcome:
+    stations: list[Station]
+    status: str = "ok"            # "ok" or "failed"
+    message: str = ""
+    dryout_z: float | None = None
+    range_notes: dict = field(default_factory=dict)   # message -> first z
+    stopped_at_duty: bool = False
+    start_heating_state: object = None
+    end_heating_state: object = None
+
+
+class HeatingSide:
+    """Interface of a heating medium seen from the tube wall.
+
+    ``state`` is the heating medium's own variable (specific enthalpy for a
+    liquid, None for condensing steam).
+    """
+
+    def temperature(self, state) -> float:
+        raise NotImplementedError
+
+    def film(self, state, T_h: float, z: float) -> Callable[[float], float]:
+        """Return a function q_outer -> temperature drop across the heating film [K]."""
+        raise NotImplementedError
+
+    def film_htc(self, state, T_h: float, z: float, q_outer: float) -> float:
+        raise NotImplementedError
+
+    def advance(self, state, duty: float):
+        """Heating-medium state after giving ``duty`` [W] to the boiling side over +dz."""
+        raise NotImplementedError
+
+
+# --------------------------------------------------------------------------- local solve
+
+@dataclass(slots=True)
+class _Local:
+    regime: str
+    q: float
+    T_s: float        # boiling-side surface temperature (outside any inner fouling layer)
+    htc: float
+    htc_nb: float
+    htc_conv: float
+    dT_film_h: float
+    x: float
+    T_b: float
+    T_sat: float
+    sat: object
+
+
+class Marcher:
+    """Stepper along one heated path; ``run`` drives it to the end.
+
+    Parameters are the tube description, the heating side, the path length and the
+    increment count. ``progress(fraction)`` is called after each increment and
+    ``cancel()`` is checked between increments.
+    """
+
+    def __init__(self, tube: BoilingTube, heating: HeatingSide, length: float, increments: int,
+                 *, progress=None, cancel=None):
+        self.tube = tube
+        self.heating = heating
+        self.length = length
+        self.n = increments
+        self.progress = progress
+        self.cancel = cancel
+        self.fb = registry.get(tube.flow_boiling)
+        self.nb = registry.get(tube.nucleate_boiling)
+        self.fric = registry.get(tube.two_phase_friction)
+        self.void = registry.get(tube.void_fraction)
+        self.chf = registry.get(tube.tube_dryout)
+        self.pattern = registry.get(tube.flow_pattern_method) if tube.flow_pattern_method else None
+        self.post = registry.get("dougall_rohsenow_1963")
+        self.sub = registry.get("liu_winterton_1991_subcooled")
+        # Fluid-specific constants: required ones travel with the inputs, the rest as options.
+        extra = dict(tube.flow_boiling_options)
+        if "horizontal" in self.fb.options:
+            extra["horizontal"] = not tube.vertical
+        self.fb_inputs = {k: v for k, v in extra.items() if k in self.fb.inputs}
+        self.fb_options = {k: v for k, v in extra.items() if k not in self.fb.inputs}
+        self.range_notes: dict[str, float] = {}
+        self.dried_out = False
+        self.dryout_z: float | None = None
+        self.x_dryout_onset = tube.critical_quality
+
+    # ---- properties of the boiling fluid at (P, h)
+    def _bulk(self, P, h):
+        """Saturation set, quality, bulk temperature and (outside the dome) the
+        single-phase (rho, mu, k, cp) at (P, h)."""
+        fluid = self.tube.fluid
+        sat = fluid.saturation(P)
+        x = (h - sat.h_l) / sat.h_lv
+        if 0.0 <= x <= 1.0:
+            return sat, x, sat.T_sat, None
+        state = fluid.at_ph(P, h)
+        return sat, x, state.T, (state.rho, state.mu, state.k, state.cp)
+
+    def _note_range(self, method, available, z):
+        for msg in method.out_of_range(available):
+            self.range_notes.setdefault(msg, z)
+
+    def _boiling_surface(self, q, P, h, sat, x, T_b, regime, single_props):
+        """Surface temperature and film coefficients at flux q for a fixed regime."""
+        t = self.tube
+        G = t.G
+        if q <= 0.0:
+            return T_b, 0.0, 0.0, 0.0
+        if regime in ("subcooled liquid", "subcooled boiling"):
+            rho, mu, k, cp = single_props
+            htc_l = htc_tube_single_phase(G, t.D_i, mu, k, cp, method=t.single_phase_tube)
+            avail = sat.as_dict()
+            avail.update(q=q)
+            htc_pool = self.nb(avail)
+            T_s = self.sub.function(q, T_b, sat.T_sat, htc_l, htc_pool, G, t.D_i, mu)
+            return T_s, q / max(T_s - T_b, 1e-9), htc_pool, htc_l
+        if regime == "saturated boiling":
+            avail = sat.as_dict()
+            xx = min(max(x, 1e-4), 0.9999)
+            avail.update(G=G, x=xx, D=t.D_i, q=q, **self.fb_inputs)
+            htc = flow_boiling_htc(self.fb.name, avail, q, sat.dp_sat, **self.fb_options)
+            htc_l = htc_tube_single_phase(G * (1.0 - xx), t.D_i, sat.mu_l, sat.k_l, sat.cp_l,
+                                          method="dittus_boelter_1930")
+            htc_pool = self.nb(avail)
+            return sat.T_sat + q / htc, htc, htc_pool, htc_l
+        if regime == "post-dryout":
+            avail = sat.as_dict()
+            avail.update(G=G, x=min(max(x, 0.0), 1.0), D=t.D_i)
+            htc = self.post(avail)
+            return T_b + q / htc, htc, 0.0, htc
+        # superheated vapour
+        rho, mu, k, cp = single_props
+        htc = htc_tube_single_phase(G, t.D_i, mu, k, cp, method=t.single_phase_tube)
+        return T_b + q / htc, htc, 0.0, htc
+
+    def _regime(self, x):
+        if self.dried_out:
+            return "post-dryout" if x < 1.0 else "superheated vapour"
+        if x < 0.0:
+            return "subcooled liquid"
+        if x < 1.0:
+            return "saturated boiling"
+        return "superheated vapour"
+
+    def solve_local(self, z, P, h, hstate, bulk=None) -> _Local:
+        """Local heat flux and temperatures at (P, h) with the heating state given."""
+        t = self.tube
+        sat, x, T_b, single = bulk or self._bulk(P, h)
+        regime = self._regime(x)
+        T_h = self.heating.temperature(hstate)
+        film = self.heating.film(hstate, T_h, z)
+        ratio = t.D_i / t.D_o
+        R_fixed = t.fouling_inner + t.wall_resistance_inner + ratio * t.fouling_outer
+
+        def resid(q):
+            T_s = self._boiling_surface(q, P, h, sat, x, T_b, regime, single)[0]
+            return T_h - T_s - q * R_fixed - film(q * ratio)
+
+        if T_h <= T_b + 1e-9:
+            q = 0.0
+        else:
+            q_hi = (T_h - T_b) / R_fixed
+            r_hi = resid(q_hi)
+            if r_hi > 0.0:  # the film resistances are negligible: the wall takes it all
+                q = q_hi
+            else:
+                q = brentq(resid, 0.0, q_hi, xtol=1e-3, rtol=1e-7, maxiter=200)
+        T_s, htc, htc_nb, htc_conv = self._boiling_surface(q, P, h, sat, x, T_b, regime, single)
+        if regime == "subcooled liquid" and T_s > sat.T_sat:
+            regime = "subcooled boiling"
+        return _Local(regime, q, T_s, htc, htc_nb, htc_conv, film(q * ratio), x, T_b,
+                      sat.T_sat, sat)
+
+    # ---- local checks and derived values
+    def _critical_flux(self, P, x, sat):
+        t = self.tube
+        avail = sat.as_dict()
+        avail.update(P=P, G=t.G, x=x if x > 0.0 or self.chf.name == "groeneveld_2006" else 1e-4,
+                     D=t.D_i)
+        return self.chf(avail), avail
+
+    def _station(self, z, P, h, hstate, local: _Local, duty, dpdz_f) -> Station:
+        t = self.tube
+        sat = local.sat
+        x = local.x
+        alpha = self._void(x, sat)
+        q = local.q
+        q_o = q * t.D_i / t.D_o
+        T_h = self.heating.temperature(hstate)
+        T_wi = local.T_s + q * t.fouling_inner
+        T_wo = T_wi + q * t.wall_resistance_inner
+        htc_h = self.heating.film_htc(hstate, T_h, z, q_o)
+        q_chf, avail = self._critical_flux(P, x, sat)
+        self._note_range(self.chf, avail, z)
+        pattern = self._flow_pattern(x, q, sat, alpha)
+        r_boil = 1.0 / local.htc if local.htc > 0 else 0.0
+        r_heat = 1.0 / htc_h if htc_h > 0 else 0.0
+        ratio = t.D_o / t.D_i
+        r_clean = r_heat + t.wall_resistance_inner * ratio + r_boil * ratio
+        r_serv = r_clean + t.fouling_outer + t.fouling_inner * ratio
+        return Station(
+            z=z, P=P, h=h, T_sat=sat.T_sat, T_process=local.T_b, T_heating=T_h,
+            T_wall_inner=T_wi, T_wall_outer=T_wo, x=x, void_fraction=alpha, q=q,
+            q_outer=q_o, htc_boiling=local.htc, htc_nucleate=local.htc_nb,
+            htc_convective=local.htc_conv, htc_heating=htc_h,
+            u_service=1.0 / r_serv if r_serv > 0 else 0.0,
+            u_clean=1.0 / r_clean if r_clean > 0 else 0.0,
+            q_chf=q_chf, chf_ratio=q / q_chf if q_chf > 0 else math.inf,
+            regime=local.regime, flow_pattern=pattern,
+            wall_superheat=local.T_s - sat.T_sat, duty=duty, dpdz_friction=dpdz_f,
+        )
+
+    def _void(self, x, sat):
+        if x <= 0.0:
+            return 0.0
+        if x >= 1.0:
+            return 1.0
+        avail = sat.as_dict()
+        avail.update(x=x, G=self.tube.G, D=self.tube.D_i)
+        return min(max(self.void(avail), 0.0), 1.0)
+
+    def _flow_pattern(self, x, q, sat, alpha):
+        if x <= 0.0:
+            return "single-phase liquid"
+        if x >= 1.0:
+            return "single-phase vapour"
+        if self.dried_out:
+            return "mist"
+        if self.pattern is None:
+            return "annular" if alpha > 0.8 else "intermittent"
+        avail = sat.as_dict()
+        avail.update(G=self.tube.G, x=x, D=self.tube.D_i, q=max(q, 1.0))
+        return self.pattern(avail)
+
+    def _gradients(self, bulk):
+        """Frictional and gravitational pressure gradients [Pa/m] (positive = pressure falls)."""
+        sat, x, _, single = bulk
+        t = self.tube
+        G = t.G
+        sin_theta = 1.0 if t.vertical else 0.0
+        if 0.0 < x < 1.0:
+            avail = sat.as_dict()
+            avail.update(G=G, x=x, D=t.D_i)
+            opts = {"roughness": t.roughness} if "roughness" in self.fric.options else {}
+            dpf = self.fric(avail, **opts)
+            alpha = self._void(x, sat)
+            rho_m = alpha * sat.rho_v + (1.0 - alpha) * sat.rho_l
+        else:
+            if single is None:  # exactly saturated liquid or vapour
+                rho, mu = (sat.rho_l, sat.mu_l) if x <= 0.0 else (sat.rho_v, sat.mu_v)
+            else:
+                rho, mu = single[0], single[1]
+            Re = G * t.D_i / mu
+            f = registry.get("colebrook_1939").function(Re, relative_roughness=t.roughness / t.D_i)
+            dpf = f * G * G / (2.0 * t.D_i * rho)
+            rho_m = rho
+        return dpf, rho_m * g * sin_theta
+
+    def _momentum_flux(self, bulk):
+        sat, x, _, single = bulk
+        G = self.tube.G
+        if 0.0 < x < 1.0:
+            alpha = min(max(self._void(x, sat), 1e-9), 1.0 - 1e-9)
+            return G * G * (x * x / (sat.rho_v * alpha) + (1.0 - x) ** 2 / (sat.rho_l * (1.0 - alpha)))
+        rho = single[0] if single is not None else (sat.rho_l if x <= 0.0 else sat.rho_v)
+        return G * G / rho
+
+    def _check_dryout(self, z, local: _Local, previous: Station | None):
+        """Switch to post-dryout where the critical flux or quality is reached.
+
+        The onset is placed between the last two stations by linear interpolation
+        of the flux ratio q/q_chf (or of the quality against the critical quality).
+        """
+        x = local.x
+        if self.dried_out or x >= 1.0:
+            return
+        q_chf, _ = self._critical_flux(local.sat.P, x, local.sat)
+        ratio = local.q / q_chf if q_chf > 0.0 else 0.0
+        by_flux = ratio >= 1.0
+        x_crit = self.x_dryout_onset
+        by_quality = x_crit is not None and x >= x_crit
+        if not (by_flux or by_quality):
+            return
+        self.dried_out = True
+        self.dryout_z = z
+        if previous is not None and z > previous.z:
+            if by_flux and previous.chf_ratio < 1.0 < ratio:
+                w = (1.0 - previous.chf_ratio) / (ratio - previous.chf_ratio)
+            elif by_quality and previous.x < x_crit < x:
+                w = (x_crit - previous.x) / (x - previous.x)
+            else:
+                w = 1.0
+            self.dryout_z = previous.z + w * (z - previous.z)
+
+    # ---- the march
+    def run(self, P0, h0, hstate0, *, stop_duty=None, max_length=None) -> MarchOutcome:
+        """March from z = 0 with the given inlet state.
+
+        ``stop_duty`` ends the march where the cumulative duty reaches it (a duty
+        check); the path may then continue past ``length`` up to ``max_length``.
+        """
+        t = self.tube
+        n_par = t.tubes_in_parallel
+        dz = self.length / self.n
+        z_end = self.length if stop_duty is None else (max_length or self.length)
+        P, h, hs, z, duty = P0, h0, hstate0, 0.0, 0.0
+        stations: list[Station] = []
+        self._hs0, self._hs = hstate0, hstate0
+        try:
+            bulk = self._bulk(P, h)
+            local = self._local_checked(z, P, h, hs, bulk, None)
+            stations.append(self._station(z, P, h, hs, local, duty, self._gradients(bulk)[0]))
+            while z < z_end - 1e-12:
+                if self.cancel is not None and self.cancel():
+                    raise Cancelled()
+                step = min(dz, z_end - z)
+                P1, h1, hs1, dQ, dpf = self._step(z, step, P, h, hs, n_par, local, bulk)
+                if stop_duty is not None and duty + dQ >= stop_duty:
+                    frac = (stop_duty - duty) / dQ if dQ > 0 else 1.0
+                    step *= frac
+                    P1, h1, hs1, dQ, dpf = self._step(z, step, P, h, hs, n_par, local, bulk)
+                    z, P, h, hs, duty = z + step, P1, h1, hs1, stop_duty
+                    self._hs = hs
+                    local = self._local_checked(z, P, h, hs, None, stations[-1])
+                    stations.append(self._station(z, P, h, hs, local, duty, dpf))
+                    return self._outcome(stations, stopped=True)
+                z, P, h, hs, duty = z + step, P1, h1, hs1, duty + dQ
+                self._hs = hs
+                if P <= 0.0 or not math.isfinite(P):
+                    return self._outcome(stations, "failed",
+                                         f"the pressure falls to zero at z = {z:.3f} m: "
+                                         "the boiling-side pressure drop exceeds the inlet pressure")
+                bulk = self._bulk(P, h)
+                local = self._local_checked(z, P, h, hs, bulk, stations[-1])
+                stations.append(self._station(z, P, h, hs, local, duty, dpf))
+                if self.progress is not None:
+                    self.progress(min(z / z_end, 1.0))
+        except PropertyError as exc:
+            return self._outcome(stations, "failed", f"at z = {z:.3f} m: {exc}")
+        except (ValueError, ZeroDivisionError, OverflowError, RuntimeError) as exc:
+            return self._outcome(stations, "failed", f"no solution at z = {z:.3f} m: {exc}")
+        if stop_duty is not None:
+            return self._outcome(stations, "failed",
+                                 f"the required duty is not reached within {z_end:.3g} m of tube "
+                                 f"(reached {duty:.4g} W)")
+        return self._outcome(stations)
+
+    def _outcome(self, stations, status="ok", message="", stopped=False):
+        return MarchOutcome(stations, status, message, self.dryout_z, dict(self.range_notes),
+                            stopped, self._hs0, self._hs)
+
+    def _local_checked(self, z, P, h, hs, bulk, previous):
+        """Local solution at a station, switching to post-dryout where it starts."""
+        bulk = bulk or self._bulk(P, h)
+        local = self.solve_local(z, P, h, hs, bulk)
+        if not self.dried_out:
+            self._check_dryout(z, local, previous)
+            if self.dried_out:
+                local = self.solve_local(z, P, h, hs, bulk)
+        self._note_ranges_at(z, local)
+        return local
+
+    def _note_ranges_at(self, z, local: _Local):
+        if local.regime == "saturated boiling":
+            avail = local.sat.as_dict()
+            avail.update(G=self.tube.G, x=min(max(local.x, 1e-4), 0.9999), D=self.tube.D_i,
+                         q=max(local.q, 1.0), **self.fb_inputs)
+            self._note_range(self.fb, avail, z)
+
+    def _step(self, z, dz, P, h, hs, n_par, loc0, bulk0):
+        """One midpoint increment from a solved station; returns the end state, the
+        duty of the increment over all parallel tubes and the friction gradient."""
+        t = self.tube
+        m = t.mass_flow_per_tube
+        per_len = math.pi * t.D_i
+        dpf0, dpg0 = self._gradients(bulk0)
+        # half step with the flux at the start, then the full step with the mid flux
+        dQh = loc0.q * per_len * 0.5 * dz
+        hm = h + dQh / m
+        Pm = P - (dpf0 + dpg0) * 0.5 * dz
+        hsm = self.heating.advance(hs, dQh * n_par)
+        bulkm = self._bulk(Pm, hm)
+        locm = self.solve_local(z + 0.5 * dz, Pm, hm, hsm, bulkm)
+        dpfm, dpgm = self._gradients(bulkm)
+        dQ = locm.q * per_len * dz
+        h1 = h + dQ / m
+        P_pred = P - (dpfm + dpgm) * dz
+        acc = self._momentum_flux(self._bulk(P_pred, h1)) - self._momentum_flux(bulk0)
+        P1 = P_pred - acc
+        hs1 = self.heating.advance(hs, dQ * n_par)
+        return P1, h1, hs1, dQ * n_par, dpfm
+
+
+class _MarchFailed(Exception):
+    def __init__(self, outcome):
+        super().__init__(outcome.message)
+        self.outcome = outcome
+
+
+def solve_counter_current(march, h_low, h_inlet) -> MarchOutcome:
+    """Shoot on the counter-current heating medium's outlet state at z = 0.
+
+    ``march(h_start)`` marches the whole path from a heating-medium enthalpy at
+    z = 0 and returns a ``MarchOutcome``; the answer is the start for which the
+    medium arrives at z = L with its given inlet enthalpy ``h_inlet``. The root is
+    bracketed between ``h_low`` (the medium cooled to the boiling inlet
+    temperature) and ``h_inlet`` (no heat given up), where the residual changes sign.
+    """
+    span = abs(h_inlet - h_low)
+    seen: dict[float, MarchOutcome] = {}
+
+    def resid(h_start):
+        out = march(h_start)
+        seen[h_start] = out
+        if out.status != "ok":
+            raise _MarchFailed(out)
+        return out.end_heating_state - h_inlet
+
+    try:
+        if resid(h_inlet) <= 0.0:  # nothing transferred: the inlet state is the answer
+            return seen[h_inlet]
+        if resid(h_low) > 0.0:
+            out = seen[h_low]
+            out.status = "failed"
+            out.message = ("no counter-current solution: the heating medium cannot be cooled "
+                           "to the boiling inlet temperature")
+            return out
+        h_start = brentq(resid, h_low, h_inlet, xtol=1e-7 * span, rtol=1e-12, maxiter=100)
+    except _MarchFailed as exc:
+        return exc.outcome
+    return seen.get(h_start) or march(h_start)

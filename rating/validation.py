@@ -1,0 +1,344 @@
+"""Input rules of a rating case: one set of checks for the engine, the CLI and the GUI.
+
+Each ``check_*`` function is called by the ``__post_init__`` of the matching
+dataclass in ``rating.case`` and raises ``InputError`` for the first problem found.
+The message reads ``<field> = <value> <unit>: <rule>`` with the allowed range in the
+rule, and ``InputError.field`` is the field name; the project loader puts the path
+in front (``cases[0].tubes.outer_diameter = -0.02 m: must be > 0``).
+
+A case is built from already-validated parts, so ``check_case`` checks its own
+fields and the rules that join parts (boiling point against heating temperature,
+critical pressure, shell needed by a liquid heating medium). Those need fluid
+properties and are taken from ``rating.properties``.
+"""
+from __future__ import annotations
+
+import dataclasses
+import math
+import numbers
+
+from .case import (
+    BWG_THICKNESS, EXCHANGER_TYPES, FLOW_ARRANGEMENTS, HEATING_KINDS, ORIENTATIONS,
+    QUESTIONS, TUBE_MATERIALS, BoilingStream, HeatingMedium, Limits, Methods, Shell, Tubes,
+)
+from .errors import InputError, PropertyError
+
+MAX_PASSES = 16
+LAYOUT_ANGLES = (30, 45, 60, 90)
+BAFFLE_CUT = (0.15, 0.45)      # fraction of the shell inner diameter, common practice
+MAX_FOULING = 0.01             # [m^2*K/W]; heavy-fouling TEMA values are below 0.002
+INCREMENTS = (10, 5000)
+TABLE_KEYS = ("T", "cp", "rho", "mu", "k")  # user property table of a heating liquid
+
+FOULING_UNIT = "m^2*K/W"
+
+
+# --- message helpers -------------------------------------------------------------
+
+def _is_number(value) -> bool:
+    return isinstance(value, numbers.Real) and not isinstance(value, bool)
+
+
+def format_value(value, unit: str = "") -> str:
+    """A value as the message shows it, with its unit when it is a number."""
+    if _is_number(value):
+        text = str(value) if isinstance(value, numbers.Integral) else f"{float(value):.6g}"
+        return f"{text} {unit}" if unit else text
+    text = repr(value)
+    return text if len(text) <= 60 else text[:57] + "..."
+
+
+def _fail(name: str, value, unit: str, rule: str):
+    raise InputError(f"{name} = {format_value(value, unit)}: {rule}", field=name)
+
+
+def _number(name: str, value, unit: str) -> float:
+    """A finite real number (not a bool, not text), else an error naming the unit."""
+    if not _is_number(value):
+        kind = "text" if isinstance(value, str) else type(value).__name__
+        _fail(name, value, unit, f"must be a number{f' [{unit}]' if unit else ''}, not {kind}")
+    if not math.isfinite(value):
+        _fail(name, value, unit, "must be a finite number")
+    return float(value)
+
+
+def _positive(name: str, value, unit: str) -> float:
+    v = _number(name, value, unit)
+    if v <= 0.0:
+        _fail(name, value, unit, "must be > 0")
+    return v
+
+
+def _non_negative(name: str, value, unit: str) -> float:
+    v = _number(name, value, unit)
+    if v < 0.0:
+        _fail(name, value, unit, "must be >= 0")
+    return v
+
+
+def _between(name: str, value, unit: str, lo: float, hi: float, *,
+             lo_closed: bool = True, hi_closed: bool = True, note: str = "") -> float:
+    v = _number(name, value, unit)
+    below = v < lo if lo_closed else v <= lo
+    above = v > hi if hi_closed else v >= hi
+    if below or above:
+        rule = (f"must be {'>=' if lo_closed else '>'} {lo:g} and "
+                f"{'<=' if hi_closed else '<'} {hi:g}{f' {unit}' if unit else ''}")
+        _fail(name, value, unit, rule + (f" ({note})" if note else ""))
+    return v
+
+
+def _whole(name: str, value, lo: int, hi: int | None = None) -> int:
+    """An integer (not a bool, not 3.0) in lo..hi."""
+    if not isinstance(value, numbers.Integral) or isinstance(value, bool):
+        _fail(name, value, "", "must be a whole number" + (f" from {lo} to {hi}" if hi else f" >= {lo}"))
+    if value < lo or (hi is not None and value > hi):
+        _fail(name, value, "", f"must be from {lo} to {hi}" if hi is not None else f"must be >= {lo}")
+    return int(value)
+
+
+def _text(name: str, value, what: str) -> str:
+    if not isinstance(value, str):
+        _fail(name, value, "", f"must be text ({what})")
+    if not value.strip():
+        _fail(name, value, "", f"must not be empty ({what})")
+    return value
+
+
+def _choice(name: str, value, choices) -> str:
+    if not isinstance(value, str) or value not in choices:
+        _fail(name, value, "", "must be one of " + ", ".join(repr(c) for c in choices))
+    return value
+
+
+def _optional(checker, name, value, *args, **kwargs):
+    return None if value is None else checker(name, value, *args, **kwargs)
+
+
+def _fouling(name: str, value) -> float:
+    return _between(name, value, FOULING_UNIT, 0.0, MAX_FOULING, hi_closed=False)
+
+
+# --- parts -----------------------------------------------------------------------
+
+def check_tubes(tubes) -> None:
+    """Tube count, geometry, wall, passes, material and layout of a ``Tubes``."""
+    count = _whole("count", tubes.count, 1)
+    _positive("length", tubes.length, "m")
+    d_o = _positive("outer_diameter", tubes.outer_diameter, "m")
+
+    if (tubes.wall_thickness is None) == (tubes.bwg is None):
+        name = "bwg" if tubes.bwg is not None else "wall_thickness"
+        _fail(name, getattr(tubes, name), "m" if name == "wall_thickness" else "",
+              "give exactly one of wall_thickness [m] or bwg (gauge)")
+    if tubes.bwg is not None:
+        if (not isinstance(tubes.bwg, numbers.Integral) or isinstance(tubes.bwg, bool)
+                or tubes.bwg not in BWG_THICKNESS):
+            _fail("bwg", tubes.bwg, "", "must be one of the BWG gauges "
+                  + ", ".join(str(g) for g in BWG_THICKNESS))
+        name, value, unit, t = "bwg", tubes.bwg, "", BWG_THICKNESS[tubes.bwg]
+    else:
+        name, value, unit = "wall_thickness", tubes.wall_thickness, "m"
+        t = _positive(name, value, unit)
+    if d_o - 2.0 * t <= 0.0:
+        _fail(name, value, unit,
+              f"leaves an inner diameter outer_diameter - 2*thickness = {d_o - 2.0 * t:.4g} m;"
+              f" the inner diameter must be > 0 and below the outer diameter, so the wall"
+              f" must be thinner than {d_o / 2.0:.4g} m")
+
+    passes = _whole("passes", tubes.passes, 1, MAX_PASSES)
+    if passes > count:
+        _fail("passes", passes, "", f"must be <= count ({count}) so that every pass has a tube")
+
+    if tubes.wall_conductivity is not None:
+        _positive("wall_conductivity", tubes.wall_conductivity, "W/m/K")
+        _text("material", tubes.material, "a tube material name")
+    elif not isinstance(tubes.material, str) or tubes.material not in TUBE_MATERIALS:
+        _fail("material", tubes.material, "", "must be one of " + ", ".join(TUBE_MATERIALS)
+              + " (or give wall_conductivity [W/m/K])")
+
+    _non_negative("roughness", tubes.roughness, "m")
+    _choice("orientation", tubes.orientation, ORIENTATIONS)
+    if tubes.pitch is not None:
+        pitch = _number("pitch", tubes.pitch, "m")
+        if pitch <= d_o:
+            _fail("pitch", tubes.pitch, "m",
+                  f"must be > outer_diameter ({d_o:.4g} m), pitch/outer_diameter > 1;"
+                  " usual ratios are 1.25 to 1.5")
+    if (not _is_number(tubes.layout_angle) or tubes.layout_angle not in LAYOUT_ANGLES):
+        _fail("layout_angle", tubes.layout_angle, "deg",
+              "must be one of " + ", ".join(str(a) for a in LAYOUT_ANGLES) + " (degrees)")
+
+
+def check_shell(shell) -> None:
+    """Shell diameter, baffle spacing and cut, sealing strips of a ``Shell``."""
+    _positive("inner_diameter", shell.inner_diameter, "m")
+    _positive("baffle_spacing", shell.baffle_spacing, "m")
+    _between("baffle_cut", shell.baffle_cut, "", *BAFFLE_CUT,
+             note="fraction of the shell inner diameter")
+    _whole("sealing_strip_pairs", shell.sealing_strip_pairs, 0)
+
+
+def check_boiling(stream) -> None:
+    """Fluid name, flow, inlet state and fouling of a ``BoilingStream``."""
+    _text("fluid", stream.fluid, "a fluid name")
+    _positive("mass_flow", stream.mass_flow, "kg/s")
+    _positive("inlet_pressure", stream.inlet_pressure, "Pa")
+    _optional(_positive, "inlet_temperature", stream.inlet_temperature, "K")
+    _optional(_between, "inlet_quality", stream.inlet_quality, "", 0.0, 1.0, hi_closed=False)
+    if stream.inlet_temperature is not None and stream.inlet_quality is not None:
+        _fail("inlet_quality", stream.inlet_quality, "",
+              "give either inlet_temperature (subcooled) or inlet_quality (saturated), not both")
+    _fouling("fouling_resistance", stream.fouling_resistance)
+
+
+def _check_table(name: str, table) -> None:
+    """A user property table {"T": [...], "cp": [...], ...} of a heating liquid."""
+    if set(table) != set(TABLE_KEYS):
+        _fail(name, table, "", "a property table needs exactly the keys " + ", ".join(TABLE_KEYS))
+    n = None
+    for key in TABLE_KEYS:
+        column = table[key]
+        if not isinstance(column, (list, tuple)) or len(column) < 2:
+            _fail(f"{name}.{key}", column, "", "must be a list of at least 2 numbers")
+        if n is not None and len(column) != n:
+            _fail(f"{name}.{key}", column, "", f"must have as many values as {name}.T ({n})")
+        n = len(column)
+        for i, v in enumerate(column):
+            _positive(f"{name}.{key}[{i}]", v, "")
+    if any(b <= a for a, b in zip(table["T"], table["T"][1:])):
+        _fail(f"{name}.T", table["T"], "", "temperatures must rise strictly")
+
+
+def check_heating(medium) -> None:
+    """Kind, fluid, pressure, inlet state and arrangement of a ``HeatingMedium``."""
+    kind = _choice("kind", medium.kind, HEATING_KINDS)
+    if isinstance(medium.fluid, dict) and kind == "liquid":
+        _check_table("fluid", medium.fluid)
+    else:
+        _text("fluid", medium.fluid, "a fluid name" + (" or a property table" if kind == "liquid" else ""))
+    _positive("pressure", medium.pressure, "Pa")
+    _optional(_positive, "inlet_temperature", medium.inlet_temperature, "K")
+    _optional(_positive, "mass_flow", medium.mass_flow, "kg/s")
+    if kind == "liquid":
+        if medium.inlet_temperature is None:
+            _fail("inlet_temperature", None, "", "a liquid heating medium needs inlet_temperature [K]")
+        if medium.mass_flow is None:
+            _fail("mass_flow", None, "", "a liquid heating medium needs mass_flow [kg/s]")
+    _choice("flow_arrangement", medium.flow_arrangement, FLOW_ARRANGEMENTS)
+    _fouling("fouling_resistance", medium.fouling_resistance)
+
+
+def check_methods(methods) -> None:
+    """Each choice names a registered method of its own family."""
+    from .correlations import registry
+
+    for f in dataclasses.fields(methods):
+        family, value = f.name, getattr(methods, f.name)
+        if family == "tube_dryout" and value == "auto":
+            continue
+        method = registry.REGISTRY.get(value) if isinstance(value, str) else None
+        if method is not None and method.family == family:
+            continue
+        choices = [m.name for m in registry.methods(family)]
+        if family == "tube_dryout":
+            choices.insert(0, "auto")
+        rule = (f"must be one of the {family} methods: " + ", ".join(choices) if choices
+                else f"no {family} method is registered")
+        if method is not None:
+            rule = f"is a {method.family} method; {rule}"
+        _fail(family, value, "", rule)
+
+
+def check_limits(limits) -> None:
+    """Warning thresholds of a ``Limits``."""
+    _between("chf_ratio", limits.chf_ratio, "", 0.0, 1.0, lo_closed=False,
+             note="fraction of the critical heat flux")
+    _optional(_between, "critical_quality", limits.critical_quality, "", 0.0, 1.0,
+              lo_closed=False, hi_closed=False)
+    _non_negative("min_nucleate_flux", limits.min_nucleate_flux, "W/m^2")
+    _non_negative("min_temperature_approach", limits.min_temperature_approach, "K")
+    _optional(_positive, "kern_flux_cap", limits.kern_flux_cap, "W/m^2")
+
+
+# --- the case ----------------------------------------------------------------------
+
+def check_case(case) -> None:
+    """Own fields of a ``Case`` and the rules that join its (validated) parts."""
+    _text("name", case.name, "the case name")
+    for name, cls in (("tubes", Tubes), ("boiling", BoilingStream), ("heating", HeatingMedium),
+                      ("methods", Methods), ("limits", Limits)):
+        if not isinstance(getattr(case, name), cls):
+            _fail(name, getattr(case, name), "", f"must be a {cls.__name__}")
+    if case.shell is not None and not isinstance(case.shell, Shell):
+        _fail("shell", case.shell, "", "must be a Shell or None")
+    _choice("type", case.type, EXCHANGER_TYPES)
+    question = _choice("question", case.question, QUESTIONS)
+    if question == "duty_check" and case.required_duty is None:
+        _fail("required_duty", None, "", "a duty check needs required_duty > 0 W")
+    _optional(_positive, "required_duty", case.required_duty, "W")
+    _optional(_whole, "increments", case.increments, *INCREMENTS)
+    if case.heating.kind == "liquid" and case.shell is None:
+        _fail("shell", None, "", "required when heating.kind = 'liquid' "
+              "(the shell-side coefficient needs the shell and its baffles)")
+    _check_temperatures(case)
+
+
+def _fluid(name: str, value):
+    from .properties import make_fluid
+
+    try:
+        return make_fluid(value)
+    except PropertyError as exc:  # unknown name (with suggestions) or a bad concentration
+        _fail(name, value, "", str(exc))
+
+
+def _saturating(name: str, value, role: str):
+    """A fluid that has a saturation curve (not an incompressible solution or a table)."""
+    fluid = _fluid(name, value)
+    if not hasattr(fluid, "P_crit"):
+        _fail(name, value, "", f"{role} needs a pure fluid with a saturation curve, "
+              "not an incompressible liquid")
+    return fluid
+
+
+def _t_sat(fluid, P: float, name: str) -> float:
+    """Saturation temperature, any property failure reported on the pressure field."""
+    try:
+        if callable(getattr(fluid, "T_sat", None)):
+            return float(fluid.T_sat(P))
+        return float(fluid.saturation(P).T_sat)
+    except PropertyError as exc:
+        _fail(name, P, "Pa", str(exc))
+
+
+def _check_temperatures(case) -> None:
+    boiling, heating = case.boiling, case.heating
+    fluid = _saturating("boiling.fluid", boiling.fluid, "the boiling side")
+    P = boiling.inlet_pressure
+    if P >= fluid.P_crit:
+        _fail("boiling.inlet_pressure", P, "Pa",
+              f"no boiling above the critical pressure (P_crit = {fluid.P_crit:.6g} Pa)")
+    T_sat = _t_sat(fluid, P, "boiling.inlet_pressure")
+    at = f"{T_sat:.5g} K at {P:.6g} Pa"
+    if boiling.inlet_temperature is not None and boiling.inlet_temperature >= T_sat:
+        _fail("boiling.inlet_temperature", boiling.inlet_temperature, "K",
+              f"a subcooled inlet must be below the saturation temperature {at};"
+              " for a saturated inlet give inlet_quality instead")
+
+    if heating.kind == "steam":
+        steam = _saturating("heating.fluid", heating.fluid, "a condensing heating medium (kind 'steam')")
+        if heating.pressure >= steam.P_crit:
+            _fail("heating.pressure", heating.pressure, "Pa",
+                  f"condensing steam must be below the critical pressure (P_crit = {steam.P_crit:.6g} Pa)")
+        T_hot = _t_sat(steam, heating.pressure, "heating.pressure")
+        if T_hot <= T_sat:
+            _fail("heating.pressure", heating.pressure, "Pa",
+                  f"must be hotter than the boiling point {at}; steam at this pressure"
+                  f" condenses at {T_hot:.5g} K")
+    else:
+        if isinstance(heating.fluid, str):
+            _fluid("heating.fluid", heating.fluid)
+        if heating.inlet_temperature <= T_sat:
+            _fail("heating.inlet_temperature", heating.inlet_temperature, "K",
+                  f"must be hotter than the boiling point {at}")
