@@ -58,8 +58,7 @@ def evaluate(case, outcome, *, fluid, service: str = "evaporator") -> list[Ratin
     # Dryout inside the tube.
     if outcome.dryout_z is not None:
         s = _first(st, lambda s: s.regime in ("post-dryout", "superheated vapour")) or st[-1]
-        by = ("the critical quality" if lim.critical_quality is not None
-              and s.x >= lim.critical_quality else "the critical heat flux")
+        by = "the " + (outcome.dryout_cause or "critical heat flux")
         severity = "error" if s.x < 0.0 else "warning"
         out.append(RatingWarning(
             "dryout", severity,

@@ -36,6 +36,7 @@ from scipy.optimize import brentq
 from .correlations import registry
 from .correlations.dimensionless import g
 from .correlations.flow_boiling import flow_boiling_htc
+from .correlations.flow_pattern import wojtan_dryout_qualities
 from .correlations.single_phase import htc_tube_single_phase
 from .errors import PropertyError
 
@@ -122,6 +123,8 @@ class MarchOutcome:
     stopped_at_duty: bool = False
     start_heating_state: object = None
     end_heating_state: object = None
+    dryout_cause: str | None = None        # "critical heat flux" or "critical quality"
+    dryout_trigger_ratio: float = 0.0      # q/q_chf of the wetted wall where dryout began
 
 
 class HeatingSide:
@@ -193,9 +196,17 @@ class Marcher:
             extra["horizontal"] = not tube.vertical
         self.fb_inputs = {k: v for k, v in extra.items() if k in self.fb.inputs}
         self.fb_options = {k: v for k, v in extra.items() if k not in self.fb.inputs}
+        # Drift-flux void models have a vertical and a horizontal form.
+        self.void_options = {}
+        if "variant" in self.void.options:
+            self.void_options["variant"] = "II" if tube.vertical else "horizontal"
+        if "D" in self.void.options:
+            self.void_options["D"] = tube.D_i
         self.range_notes: dict[str, float] = {}
         self.dried_out = False
         self.dryout_z: float | None = None
+        self.dryout_cause: str | None = None
+        self.dryout_trigger_ratio = 0.0
         self.x_dryout_onset = tube.critical_quality
 
     # ---- properties of the boiling fluid at (P, h)
@@ -306,7 +317,7 @@ class Marcher:
         htc_h = self.heating.film_htc(hstate, T_h, z, q_o)
         q_chf, avail = self._critical_flux(P, x, sat)
         self._note_range(self.chf, avail, z)
-        pattern = self._flow_pattern(x, q, sat, alpha)
+        pattern = self._flow_pattern(z, x, q, sat, alpha)
         r_boil = 1.0 / local.htc if local.htc > 0 else 0.0
         r_heat = 1.0 / htc_h if htc_h > 0 else 0.0
         ratio = t.D_o / t.D_i
@@ -331,20 +342,22 @@ class Marcher:
             return 1.0
         avail = sat.as_dict()
         avail.update(x=x, G=self.tube.G, D=self.tube.D_i)
-        return min(max(self.void(avail), 0.0), 1.0)
+        return min(max(self.void(avail, **self.void_options), 0.0), 1.0)
 
-    def _flow_pattern(self, x, q, sat, alpha):
+    def _flow_pattern(self, z, x, q, sat, alpha):
         if x <= 0.0:
             return "single-phase liquid"
         if x >= 1.0:
             return "single-phase vapour"
-        if self.dried_out:
-            return "mist"
         if self.pattern is None:
-            return "annular" if alpha > 0.8 else "intermittent"
+            return "mist" if self.dried_out else ("annular" if alpha > 0.8 else "intermittent")
         avail = sat.as_dict()
         avail.update(G=self.tube.G, x=x, D=self.tube.D_i, q=max(q, 1.0))
-        return self.pattern(avail)
+        opts = {"z": max(z, 1e-3)} if "z" in self.pattern.options else {}
+        pattern = self.pattern(avail, **opts)
+        if self.dried_out and pattern not in ("dryout", "mist"):
+            return "mist"  # a map without a dryout zone (vertical): the film is gone
+        return pattern
 
     def _gradients(self, bulk):
         """Frictional and gravitational pressure gradients [Pa/m] (positive = pressure falls)."""
@@ -389,14 +402,25 @@ class Marcher:
         if self.dried_out or x >= 1.0:
             return
         q_chf, _ = self._critical_flux(local.sat.P, x, local.sat)
-        ratio = local.q / q_chf if q_chf > 0.0 else 0.0
+        if local.q <= 0.0:
+            ratio = 0.0
+        else:  # a zero critical flux means no wetted wall is possible here
+            ratio = local.q / q_chf if q_chf > 0.0 else math.inf
         by_flux = ratio >= 1.0
         x_crit = self.x_dryout_onset
+        if not self.tube.vertical and local.q > 0.0:
+            # Horizontal tubes: the top of the tube dries out first, at Wojtan et al.'s x_di.
+            s = local.sat
+            x_di = wojtan_dryout_qualities(self.tube.G, local.q, self.tube.D_i, s.rho_l,
+                                           s.rho_v, s.sigma, s.h_lv)[0]
+            x_crit = x_di if x_crit is None else min(x_crit, x_di)
         by_quality = x_crit is not None and x >= x_crit
         if not (by_flux or by_quality):
             return
         self.dried_out = True
         self.dryout_z = z
+        self.dryout_cause = "critical heat flux" if by_flux else "critical quality"
+        self.dryout_trigger_ratio = ratio
         if previous is not None and z > previous.z:
             if by_flux and previous.chf_ratio < 1.0 < ratio:
                 w = (1.0 - previous.chf_ratio) / (ratio - previous.chf_ratio)
@@ -461,7 +485,8 @@ class Marcher:
 
     def _outcome(self, stations, status="ok", message="", stopped=False):
         return MarchOutcome(stations, status, message, self.dryout_z, dict(self.range_notes),
-                            stopped, self._hs0, self._hs)
+                            stopped, self._hs0, self._hs, self.dryout_cause,
+                            self.dryout_trigger_ratio)
 
     def _local_checked(self, z, P, h, hs, bulk, previous):
         """Local solution at a station, switching to post-dryout where it starts."""

@@ -8,9 +8,9 @@ import math
 
 import ht
 import pytest
+from property_sets import P3, R10, SETS, W1
 from scipy.integrate import quad
 
-from property_sets import P3, R10, SETS, W1
 from rating.correlations import get
 from rating.correlations.condensation import (
     RE_TURBULENT,
@@ -108,6 +108,18 @@ def test_mean_is_continuous_at_the_regime_switches():
     below = nusselt_kutateladze_labuntsov_mean(RE_WAVY * (1 - 1e-9), **film)
     above = nusselt_kutateladze_labuntsov_mean(RE_WAVY, **film)
     assert above == pytest.approx(below, rel=5e-3)
+
+
+@pytest.mark.parametrize("Re_f", [1700.0, 5000.0, 3e4])
+def test_turbulent_mean_is_labuntsov(Re_f):
+    # Labuntsov's mean as printed (CHECK-VALUES 6b brief; Cengel):
+    # htc = Re k / (8750 + 58 Pr^-0.5 (Re^0.75 - 253)) (g/nu^2)^(1/3), nu = mu_l/rho_l.
+    # At 1700 the wavy form would be 2.6 % higher: this pins the switch below 1800.
+    p = W1
+    scale = p["k_l"] * (9.80665 * p["rho_l"] ** 2 / p["mu_l"] ** 2) ** (1 / 3)
+    expected = Re_f * scale / (8750.0 + 58.0 * p["Pr_l"] ** -0.5 * (Re_f**0.75 - 253.0))
+    assert nusselt_kutateladze_labuntsov_mean(Re_f, **_film(p)) == pytest.approx(
+        expected, rel=1e-3)  # rho_l^2 vs rho_l (rho_l - rho_v): 2e-4 for W1
 
 
 def test_turbulent_local_is_labuntsov_nusselt_number():

@@ -7,6 +7,7 @@ CHECK-VALUES.md section 1c at its rounding), typed in here so that a CoolProp
 release cannot move them.
 """
 import math
+from itertools import pairwise
 from pathlib import Path
 
 import pytest
@@ -159,7 +160,8 @@ def test_bowring_subcooled_inlet_from_7b_intermediates():
     # q = (A + B dh_in)/(C + L) with 200 kJ/kg of inlet subcooling
     w = WATER_1MPA
     expected = (3.34345e6 + 2.5 * 200e3) / (0.307834 + 3.0)
-    assert bowring_1972(1e6, 500.0, 0.020, 3.0, w["h_lv"], dh_in=200e3) == pytest.approx(expected, rel=1e-5)
+    q = bowring_1972(1e6, 500.0, 0.020, 3.0, w["h_lv"], dh_in=200e3)
+    assert q == pytest.approx(expected, rel=1e-5)
 
 
 @pytest.mark.parametrize("case", CASES_7B, ids=[c[0] for c in CASES_7B])
@@ -171,7 +173,8 @@ def test_katto_ohno_7b(case):
 
 
 def test_katto_ohno_r134a_7b():
-    # CHECK-VALUES 7b: R134a 10 degC (R10), G = 500, L = 2 m, D = 10 mm -> 99.78 kW/m^2, x_exit 0.837
+    # CHECK-VALUES 7b: R134a 10 degC (R10), G = 500, L = 2 m, D = 10 mm
+    # -> 99.78 kW/m^2, x_exit 0.837
     q = katto_ohno_1984(500.0, 0.010, 2.0, **_props(R10))
     assert q == pytest.approx(99.78e3, rel=1e-4)
     assert x_exit(q, 500.0, 0.010, 2.0, R10["h_lv"]) == pytest.approx(0.837, abs=6e-4)
@@ -271,7 +274,7 @@ def test_katto_ohno_local_falls_with_quality(state):
     p = _props(state)
     qs = [katto_ohno_local(500.0, x, 0.02, **p) for x in (0.01, 0.05, 0.1, 0.2, 0.3, 0.4, 0.5)]
     assert all(math.isfinite(q) and q > 0 for q in qs)
-    assert all(a > b for a, b in zip(qs, qs[1:]))
+    assert all(a > b for a, b in pairwise(qs))
 
 
 def test_registered_in_tube_dryout_family():

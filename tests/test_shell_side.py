@@ -76,18 +76,23 @@ def test_tema_shell_baffle_clearance():
     assert tema_shell_baffle_clearance(0.59) == pytest.approx(4.7625e-3)
     assert tema_shell_baffle_clearance(54.0 * IN) == pytest.approx(6.35e-3)
     assert tema_shell_baffle_clearance(60.0 * IN) == pytest.approx(7.9375e-3)
-    assert KERN_73.shell_baffle_clearance == pytest.approx(4.7625e-3)
+    assert KERN_73.L_sb == pytest.approx(4.7625e-3)
 
 
 def test_clearance_defaults_and_overrides():
     assert TYPICAL.tube_baffle_clearance == pytest.approx(0.8e-3)       # 1/32 in, TEMA RCB-4.2
-    assert TYPICAL.bundle_shell_clearance == pytest.approx(fixed_tubesheet_bundle_clearance(0.59))
+    assert TYPICAL.L_bb == pytest.approx(fixed_tubesheet_bundle_clearance(0.59))
     # Ray & Das (2020) Table 4.11: 10-12 mm for fixed tubesheets to 1 m [found]; the
     # default is within a few mm of it
     assert 0.010 <= fixed_tubesheet_bundle_clearance(0.59) <= 0.016
-    assert TYPICAL.inlet_baffle_spacing == TYPICAL.outlet_baffle_spacing == 0.24
+    assert TYPICAL.L_bi == TYPICAL.L_bo == 0.24
     own = dataclasses.replace(TYPICAL, bundle_shell_clearance=0.035)
-    assert own.bundle_shell_clearance == 0.035
+    assert own.L_bb == 0.035
+    # defaults follow a changed shell size instead of being carried over
+    bigger = dataclasses.replace(TYPICAL, shell_inner_diameter=1.2, baffle_spacing=0.5)
+    assert bigger.L_sb == pytest.approx(tema_shell_baffle_clearance(1.2))
+    assert bigger.L_bb == pytest.approx(fixed_tubesheet_bundle_clearance(1.2))
+    assert bigger.L_bi == 0.5
 
 
 def test_invalid_geometry_is_an_input_error():
@@ -99,6 +104,8 @@ def test_invalid_geometry_is_an_input_error():
         dataclasses.replace(TYPICAL, baffle_cut=0.6)
     with pytest.raises(InputError):
         dataclasses.replace(TYPICAL, bundle_shell_clearance=0.6)
+    with pytest.raises(InputError):
+        dataclasses.replace(TYPICAL, tube_count=5000)
 
 
 def test_window_fraction_limits():
@@ -119,6 +126,28 @@ def test_crossflow_area_against_kern_flow_area():
     ratio = tight.crossflow_area / tight.kern_flow_area
     assert ratio == pytest.approx(tight.centre_tube_limit / tight.shell_inner_diameter,
                                   rel=1e-12)
+
+
+@pytest.mark.parametrize("angle", [30, 45, 60, 90])
+@pytest.mark.parametrize("pitch_ratio", [1.25, 1.333, 1.5])
+def test_crossflow_area_minimum_gap_rule(angle, pitch_ratio):
+    # Independent formulation: the minimum free area of a tube bank is the smaller
+    # of the transverse gap (s_t - d) per s_t and the two diagonal gaps 2 (s_d - d)
+    # per s_t (the maximum-velocity rule for staggered banks, e.g. Incropera &
+    # DeWitt, Fundamentals of Heat and Mass Transfer, external flow across tube
+    # banks). With no bundle clearance S_m = L_bc D_ctl x that fraction.
+    d = 0.01905
+    p = pitch_ratio * d
+    s_t, s_l = {30: (p, 0.866025 * p), 45: (math.sqrt(2) * p, 0.707107 * p),
+                60: (math.sqrt(3) * p, 0.5 * p), 90: (p, p)}[angle]
+    fraction = (s_t - d) / s_t
+    if angle != 90:  # staggered
+        s_d = math.hypot(s_t / 2.0, s_l)
+        fraction = min(fraction, 2.0 * (s_d - d) / s_t)
+    shell = dataclasses.replace(TYPICAL, tube_outer_diameter=d, tube_pitch=p,
+                                layout_angle_deg=angle, bundle_shell_clearance=0.0)
+    assert shell.crossflow_area == pytest.approx(
+        shell.baffle_spacing * shell.centre_tube_limit * fraction, rel=1e-5)
 
 
 def test_kern_equivalent_diameters():

@@ -42,7 +42,6 @@ STATE_IDS = [f"{n}-x{x}" for n, x in STATES]
 GH = dict(G=0.6 / (math.pi * 0.05**2 / 4.0), x=0.1, D=0.05, rho_l=915.0, rho_v=2.67,
           mu_l=180e-6, mu_v=14e-6)
 GH_SIGMA = 0.0487
-GH_FLUIDS = dict(m=0.6, x=0.1, rhol=915.0, rhog=2.67, mul=180e-6, mug=14e-6, D=0.05)
 
 
 def test_friedel_multiplier_reproduces_ghiaasiaan():

@@ -101,8 +101,8 @@ def groeneveld_2006(P, G, x, D):
     (the validity range reports them). The diameter factor holds for
     3 mm <= D <= 25 mm (Groeneveld et al. 2007); above 25 mm the value at
     25 mm is used (K = 0.566), below 3 mm D is held at 3 mm (K = 1.633).
-    The 3 mm bound is the paper's; the 2 mm bound found with the
-    (0.008/D)^(1/3) factor belongs to the 1995 table.
+    The 3 mm bound is the 2006 paper's; a 2 mm bound goes with the earlier
+    tables' (0.008/D)^(1/3) factor, valid to 16 mm [memory].
 
     Parameters
     ----------

@@ -97,9 +97,11 @@ class ShellGeometry:
     hole 0.8 mm (1/32 in, TEMA RCB-4.2 for unsupported spans up to 36 in);
     shell-to-baffle from TEMA Table RCB-4.3 (``tema_shell_baffle_clearance``);
     bundle-to-shell for a fixed tubesheet (``fixed_tubesheet_bundle_clearance``);
-    inlet and outlet baffle spacing equal to the central spacing. Tube-pass
-    partition lanes are taken as normal to the crossflow (no pass-lane
-    bypass). ``tube_length`` is the effective length between tubesheets.
+    inlet and outlet baffle spacing equal to the central spacing. A field left
+    None takes its default when used; the values in use are ``L_bi``, ``L_bo``,
+    ``L_sb`` and ``L_bb`` (Taborek's symbols; ``tube_baffle_clearance`` is
+    L_tb). Tube-pass partition lanes are taken as normal to the crossflow (no
+    pass-lane bypass). ``tube_length`` is the effective length between tubesheets.
     Layout angle 30 (triangular), 60 (rotated triangular), 90 (square) or
     45 (rotated square) degrees, measured to the flow direction.
     """
@@ -137,23 +139,47 @@ class ShellGeometry:
         if self.tube_count < 1 or self.tube_passes < 1 or self.sealing_strip_pairs < 0:
             raise InputError("tube_count and tube_passes must be >= 1, "
                              "sealing_strip_pairs >= 0", "tube_count")
-        defaults = {
-            "inlet_baffle_spacing": self.baffle_spacing,
-            "outlet_baffle_spacing": self.baffle_spacing,
-            "shell_baffle_clearance": tema_shell_baffle_clearance(self.shell_inner_diameter),
-            "bundle_shell_clearance": fixed_tubesheet_bundle_clearance(
-                self.shell_inner_diameter),
-        }
-        for name, value in defaults.items():  # frozen: fill the defaults once
-            if getattr(self, name) is None:
-                object.__setattr__(self, name, value)
         for name in ("tube_baffle_clearance", "shell_baffle_clearance",
                      "bundle_shell_clearance"):
-            if getattr(self, name) < 0.0:
-                raise InputError(f"{name} = {getattr(self, name)} m: must be >= 0", name)
+            value = getattr(self, name)
+            if value is not None and value < 0.0:
+                raise InputError(f"{name} = {value} m: must be >= 0", name)
+        for name in ("inlet_baffle_spacing", "outlet_baffle_spacing"):
+            value = getattr(self, name)
+            if value is not None and not value > 0.0:
+                raise InputError(f"{name} = {value} m: must be > 0", name)
         if not self.outer_tube_limit > self.tube_outer_diameter:
             raise InputError("bundle_shell_clearance leaves no room for the bundle",
                              "bundle_shell_clearance")
+        if not self.window_area > 0.0:
+            raise InputError(f"tube_count = {self.tube_count}: more tubes than the baffle "
+                             "window can hold", "tube_count")
+
+    # -- values in use (a None field takes its default here, so that
+    #    dataclasses.replace never carries a default computed for other sizes)
+    @property
+    def L_bi(self):
+        """Inlet baffle spacing in use [m]."""
+        return self.baffle_spacing if self.inlet_baffle_spacing is None \
+            else self.inlet_baffle_spacing
+
+    @property
+    def L_bo(self):
+        """Outlet baffle spacing in use [m]."""
+        return self.baffle_spacing if self.outlet_baffle_spacing is None \
+            else self.outlet_baffle_spacing
+
+    @property
+    def L_sb(self):
+        """Diametral shell-to-baffle clearance in use [m]."""
+        return tema_shell_baffle_clearance(self.shell_inner_diameter) \
+            if self.shell_baffle_clearance is None else self.shell_baffle_clearance
+
+    @property
+    def L_bb(self):
+        """Diametral bundle-to-shell clearance D_s - D_otl in use [m]."""
+        return fixed_tubesheet_bundle_clearance(self.shell_inner_diameter) \
+            if self.bundle_shell_clearance is None else self.bundle_shell_clearance
 
     # -- bundle and window geometry --------------------------------------
     @property
@@ -164,7 +190,7 @@ class ShellGeometry:
     @property
     def outer_tube_limit(self):
         """D_otl = D_s - L_bb [m]."""
-        return self.shell_inner_diameter - self.bundle_shell_clearance
+        return self.shell_inner_diameter - self.L_bb
 
     @property
     def centre_tube_limit(self):
@@ -198,7 +224,7 @@ class ShellGeometry:
         """S_m, crossflow area at the shell centre line of one baffle space [m^2]."""
         p_eff = _PITCH_EFFECTIVE[self.layout_angle_deg] * self.tube_pitch
         gaps = self.centre_tube_limit / p_eff * (self.tube_pitch - self.tube_outer_diameter)
-        return self.baffle_spacing * (self.bundle_shell_clearance + gaps)
+        return self.baffle_spacing * (self.L_bb + gaps)
 
     @property
     def window_area(self):
@@ -226,13 +252,13 @@ class ShellGeometry:
     @property
     def shell_baffle_leakage_area(self):
         """S_sb, shell-to-baffle leakage area of one baffle [m^2]."""
-        return (math.pi * self.shell_inner_diameter * self.shell_baffle_clearance / 2.0
+        return (math.pi * self.shell_inner_diameter * self.L_sb / 2.0
                 * (1.0 - self.baffle_cut_angle / (2.0 * math.pi)))
 
     @property
     def bypass_fraction(self):
         """F_sbp = S_b / S_m, bundle-to-shell bypass area over crossflow area [-]."""
-        return self.baffle_spacing * self.bundle_shell_clearance / self.crossflow_area
+        return self.baffle_spacing * self.L_bb / self.crossflow_area
 
     @property
     def rows_crossflow(self):
@@ -249,7 +275,7 @@ class ShellGeometry:
     @property
     def baffle_count(self):
         """N_b = (L - L_bi - L_bo) / L_bc + 1, rounded, at least 1 [-]."""
-        central = self.tube_length - self.inlet_baffle_spacing - self.outlet_baffle_spacing
+        central = self.tube_length - self.L_bi - self.L_bo
         return max(1, round(central / self.baffle_spacing) + 1)
 
     # -- Kern's method ---------------------------------------------------
@@ -443,7 +469,7 @@ def bell_delaware(m_dot, rho, mu, cp, k, shell, *, mu_wall=None):
     htc_ideal = j * cp * G * prandtl(cp, mu, k) ** (-2.0 / 3.0) * phi
 
     N_b, N_tcc, N_tcw = shell.baffle_count, shell.rows_crossflow, shell.rows_window
-    B, B_in, B_out = shell.baffle_spacing, shell.inlet_baffle_spacing, shell.outlet_baffle_spacing
+    B, B_in, B_out = shell.baffle_spacing, shell.L_bi, shell.L_bo
     J_c = baffle_correction_Bell(shell.crossflow_tube_fraction, method="HEDH")
     J_l, R_l = _leakage_factors(shell.shell_baffle_leakage_area,
                                 shell.tube_baffle_leakage_area, S_m)

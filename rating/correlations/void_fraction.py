@@ -163,7 +163,8 @@ _RA_C0 = {"horizontal": 0.12, "I": 0.2, "II": 0.2}
         "section Hbb, VDI-Verlag (the horizontal-tube C0)",
     ),
     notes='variant "horizontal": C0 = 1 + 0.12(1-x) (Steiner, the same as steiner_1993); '
-          '"I": C0 = 1 + 0.2(1-x); "II" (vertical, needs D): C0 = 1 + 0.2(1-x)(g D rho_l^2/G^2)^0.25.',
+          '"I": C0 = 1 + 0.2(1-x); "II" (vertical, needs D): '
+          'C0 = 1 + 0.2(1-x)(g D rho_l^2/G^2)^0.25.',
 )
 def rouhani_axelsson_1970(x, rho_l, rho_v, sigma, G, *, D=None, variant="horizontal"):
     """Rouhani-Axelsson drift-flux void fraction.

@@ -180,7 +180,7 @@ def rate_evaporator(case, *, increments=None, progress=None, cancel=None) -> Res
 
     primary = check if (case.question == "duty_check" and check is not None
                         and check.status == "ok") else outcome
-    summary = _summary(case, tube, heating, hs_inlet, outcome, check, fluid)
+    summary = _summary(case, tube, heating, hs_inlet, primary, outcome, check)
     warnings = checks.evaluate(case, primary, fluid=fluid, service="evaporator")
     if check is not None and check.status != "ok":
         warnings.append(RatingWarning("duty-not-reached", "error", check.message, None))
@@ -232,26 +232,35 @@ def _integrate(stations, attr):
     return total
 
 
-def _summary(case, tube, heating, hs_inlet, outcome, check, fluid) -> dict:
-    st = outcome.stations
+def _summary(case, tube, heating, hs_inlet, primary, performance, check) -> dict:
+    """Summary of the march that answers the case's question.
+
+    For a performance rating that is the full-length march. For a duty check it is
+    the march that stops where the required duty is absorbed: its U and mean
+    temperature difference are averages over the required area, and the
+    full-length duty is kept as ``performance_duty_W``.
+    """
+    st = primary.stations
     first, last = st[0], st[-1]
-    m = case.boiling.mass_flow
-    duty = m * (last.h - first.h)
+    duty = case.boiling.mass_flow * (last.h - first.h)
     per_len_o = tube.tubes_in_parallel * math.pi * tube.D_o
     area = case.tubes.outer_area
+    area_marched = per_len_o * last.z
     ua = per_len_o * _integrate(st, "u_service")
     ua_clean = per_len_o * _integrate(st, "u_clean")
     if hs_inlet is None:
-        duty_heating = last.duty  # condensate x latent heat = the heat given up
+        duty_heating = last.duty  # condensate x latent heat = the heat the steam gave up
         heating_out = heating.T
         dp_heating = 0.0
         steam_flow = duty_heating / heating.sat.h_lv
     else:
-        h_out = outcome.end_heating_state if case.heating.flow_arrangement == "co" \
-            else outcome.start_heating_state
+        co = case.heating.flow_arrangement == "co"
+        h_out = primary.end_heating_state if co else primary.start_heating_state
+        h_in = hs_inlet if co else primary.end_heating_state
+        # The given inlet state against the outlet the march found.
         duty_heating = case.heating.mass_flow * (hs_inlet - h_out)
         heating_out = heating.temperature(h_out)
-        T_mean = 0.5 * (heating_out + case.heating.inlet_temperature)
+        T_mean = 0.5 * (heating_out + heating.temperature(h_in))
         dp_heating = heating.shell_result(T_mean).dP_total
         steam_flow = None
     mtd = duty / ua if ua > 0 else None
@@ -259,8 +268,8 @@ def _summary(case, tube, heating, hs_inlet, outcome, check, fluid) -> dict:
         "duty_W": duty,
         "duty_heating_side_W": duty_heating,
         "area_m2": area,
-        "u_clean_W_m2K": ua_clean / area,
-        "u_service_W_m2K": ua / area,
+        "u_clean_W_m2K": ua_clean / area_marched,
+        "u_service_W_m2K": ua / area_marched,
         "mean_temperature_difference_K": mtd,
         "over_design_pct": None,
         "exit_quality": last.x,
@@ -269,23 +278,24 @@ def _summary(case, tube, heating, hs_inlet, outcome, check, fluid) -> dict:
         "pressure_drop_heating_Pa": dp_heating,
         "heating_outlet_temperature_K": heating_out,
         "max_heat_flux_W_m2": max(s.q for s in st),
-        "max_chf_ratio": max(s.chf_ratio for s in st),
-        "dryout_z_m": outcome.dryout_z,
+        # The wetted wall's ratio where dryout began counts: after it the flux collapses.
+        "max_chf_ratio": max(max(s.chf_ratio for s in st), primary.dryout_trigger_ratio),
+        "dryout_z_m": primary.dryout_z,
         "exit_pressure_Pa": last.P,
         "steam_flow_kg_s": steam_flow,
+        "performance_duty_W": case.boiling.mass_flow * (performance.stations[-1].h
+                                                        - performance.stations[0].h),
         "required_duty_W": case.required_duty,
         "required_area_m2": None,
         "u_required_W_m2K": None,
         "over_surface_pct": None,
     }
     if check is not None and check.status == "ok" and check.stations:
-        z_req = check.stations[-1].z
-        a_req = per_len_o * z_req
+        a_req = per_len_o * check.stations[-1].z
         summary["required_area_m2"] = a_req
         summary["over_design_pct"] = (area / a_req - 1.0) * 100.0
-        if mtd:
+        if check is primary and mtd:
             u_req = case.required_duty / (area * mtd)
             summary["u_required_W_m2K"] = u_req
             summary["over_surface_pct"] = (summary["u_clean_W_m2K"] / u_req - 1.0) * 100.0
     return summary
-
