@@ -48,6 +48,14 @@ class Cancelled(Exception):
     """Raised inside the march when the caller's cancel flag is set."""
 
 
+class _PressureExhausted(Exception):
+    """The boiling-side pressure drop of an increment would take the pressure to zero."""
+
+    def __init__(self, z):
+        super().__init__(z)
+        self.z = z
+
+
 @dataclass(frozen=True, slots=True)
 class Station:
     """Local values at one station along the heated length (SI)."""
@@ -147,6 +155,10 @@ class HeatingSide:
     def advance(self, state, duty: float):
         """Heating-medium state after giving ``duty`` [W] to the boiling side over +dz."""
         raise NotImplementedError
+
+    def capacity_rate(self, state) -> float:
+        """Heat capacity rate m cp [W/K] of the medium; infinite when it condenses."""
+        return math.inf
 
 
 # --------------------------------------------------------------------------- local solve
@@ -392,50 +404,56 @@ class Marcher:
         rho = single[0] if single is not None else (sat.rho_l if x <= 0.0 else sat.rho_v)
         return G * G / rho
 
-    def _check_dryout(self, z, local: _Local, previous: Station | None):
-        """Switch to post-dryout where the critical flux or quality is reached.
+    def _dryout_margin(self, local: _Local):
+        """How far the wetted wall is past dryout: >= 0 means dry.
 
-        The onset is placed between the last two stations by linear interpolation
-        of the flux ratio q/q_chf (or of the quality against the critical quality).
+        The larger of q/q_chf - 1 (critical heat flux) and x - x_crit (critical
+        quality: the user's limit, and in horizontal tubes the Wojtan et al. 2005
+        dryout-onset quality x_di, where the top of the tube dries first).
+        Returns (margin, cause, q/q_chf).
         """
         x = local.x
-        if self.dried_out or x >= 1.0:
-            return
+        if x >= 1.0:
+            return -math.inf, None, 0.0
         q_chf, _ = self._critical_flux(local.sat.P, x, local.sat)
         if local.q <= 0.0:
             ratio = 0.0
         else:  # a zero critical flux means no wetted wall is possible here
             ratio = local.q / q_chf if q_chf > 0.0 else math.inf
-        by_flux = ratio >= 1.0
         x_crit = self.x_dryout_onset
-        if not self.tube.vertical and local.q > 0.0:
-            # Horizontal tubes: the top of the tube dries out first, at Wojtan et al.'s x_di.
+        if not self.tube.vertical and local.q > 0.0 and x > 0.0:
             s = local.sat
             x_di = wojtan_dryout_qualities(self.tube.G, local.q, self.tube.D_i, s.rho_l,
                                            s.rho_v, s.sigma, s.h_lv)[0]
             x_crit = x_di if x_crit is None else min(x_crit, x_di)
-        by_quality = x_crit is not None and x >= x_crit
-        if not (by_flux or by_quality):
-            return
+        by_flux = ratio - 1.0
+        by_quality = x - x_crit if x_crit is not None else -math.inf
+        if by_flux >= by_quality:
+            return by_flux, "critical heat flux", ratio
+        return by_quality, "critical quality", ratio
+
+    def _local(self, z, P, h, hs, bulk=None):
+        bulk = bulk or self._bulk(P, h)
+        local = self.solve_local(z, P, h, hs, bulk)
+        self._note_ranges_at(z, local)
+        return bulk, local
+
+    def _dry_out_here(self, z, local):
+        margin, cause, ratio = self._dryout_margin(local)
         self.dried_out = True
         self.dryout_z = z
-        self.dryout_cause = "critical heat flux" if by_flux else "critical quality"
+        self.dryout_cause = cause
         self.dryout_trigger_ratio = ratio
-        if previous is not None and z > previous.z:
-            if by_flux and previous.chf_ratio < 1.0 < ratio:
-                w = (1.0 - previous.chf_ratio) / (ratio - previous.chf_ratio)
-            elif by_quality and previous.x < x_crit < x:
-                w = (x_crit - previous.x) / (x - previous.x)
-            else:
-                w = 1.0
-            self.dryout_z = previous.z + w * (z - previous.z)
 
     # ---- the march
     def run(self, P0, h0, hstate0, *, stop_duty=None, max_length=None) -> MarchOutcome:
         """March from z = 0 with the given inlet state.
 
-        ``stop_duty`` ends the march where the cumulative duty reaches it (a duty
-        check); the path may then continue past ``length`` up to ``max_length``.
+        Increments end exactly on the events along the path (the saturation point,
+        the onset of dryout and, with ``stop_duty``, a duty check, the point where
+        the cumulative duty reaches it) so that the outcome depends continuously on
+        the inlet states, as the shooting and circulation roots need. With
+        ``stop_duty`` the path may continue past ``length`` up to ``max_length``.
         """
         t = self.tube
         n_par = t.tubes_in_parallel
@@ -445,34 +463,47 @@ class Marcher:
         stations: list[Station] = []
         self._hs0, self._hs = hstate0, hstate0
         try:
-            bulk = self._bulk(P, h)
-            local = self._local_checked(z, P, h, hs, bulk, None)
+            bulk, local = self._local(z, P, h, hs)
+            if self._dryout_margin(local)[0] >= 0.0:
+                self._dry_out_here(z, local)
+                bulk, local = self._local(z, P, h, hs, bulk)
             stations.append(self._station(z, P, h, hs, local, duty, self._gradients(bulk)[0]))
             while z < z_end - 1e-12:
                 if self.cancel is not None and self.cancel():
                     raise Cancelled()
-                step = min(dz, z_end - z)
-                P1, h1, hs1, dQ, dpf = self._step(z, step, P, h, hs, n_par, local, bulk)
-                if stop_duty is not None and duty + dQ >= stop_duty:
-                    frac = (stop_duty - duty) / dQ if dQ > 0 else 1.0
-                    step *= frac
-                    P1, h1, hs1, dQ, dpf = self._step(z, step, P, h, hs, n_par, local, bulk)
-                    z, P, h, hs, duty = z + step, P1, h1, hs1, stop_duty
-                    self._hs = hs
-                    local = self._local_checked(z, P, h, hs, None, stations[-1])
-                    stations.append(self._station(z, P, h, hs, local, duty, dpf))
-                    return self._outcome(stations, stopped=True)
+                step = min(dz, z_end - z, self._stable_step(local, bulk, hs, dz))
+                end = self._step(z, step, P, h, hs, n_par, local, bulk)
+                event, end_local = self._event(z, step, end, local, duty, stop_duty)
+                if event is not None:
+                    step, end, end_local = self._locate(event, z, step, P, h, hs, n_par, local,
+                                                        bulk, duty, stop_duty)
+                P1, h1, hs1, dQ, dpf = end
                 z, P, h, hs, duty = z + step, P1, h1, hs1, duty + dQ
                 self._hs = hs
                 if P <= 0.0 or not math.isfinite(P):
                     return self._outcome(stations, "failed",
                                          f"the pressure falls to zero at z = {z:.3f} m: "
                                          "the boiling-side pressure drop exceeds the inlet pressure")
-                bulk = self._bulk(P, h)
-                local = self._local_checked(z, P, h, hs, bulk, stations[-1])
+                if end_local is not None:
+                    bulk, local = end_local
+                    self._note_ranges_at(z, local)
+                else:
+                    bulk, local = self._local(z, P, h, hs)
+                if event == "dryout":
+                    # The wetted wall's station, then the dry one at the same z: the jump.
+                    stations.append(self._station(z, P, h, hs, local, duty, dpf))
+                    self._dry_out_here(z, local)
+                    bulk, local = self._local(z, P, h, hs, bulk)
                 stations.append(self._station(z, P, h, hs, local, duty, dpf))
+                if event == "duty":
+                    return self._outcome(stations, stopped=True)
                 if self.progress is not None:
                     self.progress(min(z / z_end, 1.0))
+        except _PressureExhausted as exc:
+            return self._outcome(stations, "failed", (
+                f"the boiling-side pressure is used up by friction and acceleration at "
+                f"z = {exc.z:.3f} m: the flow is too large for these tubes (choking is not "
+                "modelled); use more tubes or passes with fewer tubes in series"))
         except PropertyError as exc:
             return self._outcome(stations, "failed", f"at z = {z:.3f} m: {exc}")
         except (ValueError, ZeroDivisionError, OverflowError, RuntimeError) as exc:
@@ -483,21 +514,86 @@ class Marcher:
                                  f"(reached {duty:.4g} W)")
         return self._outcome(stations)
 
+    #: Largest number of transfer units an increment may carry on either side, and the
+    #: smallest increment, as a share of the nominal one. An explicit step that carries
+    #: more than about one transfer unit overshoots (the fluid would pass the heating
+    #: temperature); short increments keep single-phase zones with a large NTU stable.
+    _NTU_PER_STEP = 0.4
+    _SMALLEST_STEP = 1.0 / 128.0
+
+    def _stable_step(self, local: _Local, bulk, hs, dz):
+        dT = self.heating.temperature(hs) - local.T_b
+        if local.q <= 0.0 or dT <= 0.0:
+            return dz
+        t = self.tube
+        ua_per_length = local.q * math.pi * t.D_i / dT          # per tube [W/m/K]
+        single = bulk[3]
+        c_boil = t.mass_flow_per_tube * single[3] if single is not None else math.inf
+        c_heat = self.heating.capacity_rate(hs) / t.tubes_in_parallel
+        c_min = min(c_boil, c_heat)
+        step = dz
+        if math.isfinite(c_min):
+            step = self._NTU_PER_STEP * c_min / ua_per_length
+        if single is None:  # two-phase: a quality change of at most 0.25 per increment
+            step = min(step, 0.25 * t.mass_flow_per_tube * bulk[0].h_lv / (local.q * math.pi * t.D_i))
+        return min(dz, max(step, self._SMALLEST_STEP * dz))
+
     def _outcome(self, stations, status="ok", message="", stopped=False):
         return MarchOutcome(stations, status, message, self.dryout_z, dict(self.range_notes),
                             stopped, self._hs0, self._hs, self.dryout_cause,
                             self.dryout_trigger_ratio)
 
-    def _local_checked(self, z, P, h, hs, bulk, previous):
-        """Local solution at a station, switching to post-dryout where it starts."""
-        bulk = bulk or self._bulk(P, h)
-        local = self.solve_local(z, P, h, hs, bulk)
-        if not self.dried_out:
-            self._check_dryout(z, local, previous)
-            if self.dried_out:
-                local = self.solve_local(z, P, h, hs, bulk)
-        self._note_ranges_at(z, local)
-        return local
+    # Events inside an increment, as functions of the end state; each is < 0 at the
+    # start of the increment and >= 0 where the event has happened.
+    _SATURATION_TARGET = 1e-9   # land just past x = 0, so the next station is saturated
+
+    def _event_value(self, event, end, duty, stop_duty, end_local):
+        if event == "duty":
+            return (duty + end[3] - stop_duty) / stop_duty
+        if event == "saturation":
+            return end_local[0][1] - self._SATURATION_TARGET
+        if event == "dry vapour":
+            return end_local[0][1] - 1.0 - self._SATURATION_TARGET
+        return self._dryout_margin(end_local[1])[0]
+
+    def _event(self, z, step, end, local, duty, stop_duty):
+        """The first event inside the increment just computed, or the end's local solution."""
+        if stop_duty is not None and duty + end[3] >= stop_duty:
+            return "duty", None
+        P1, h1, hs1 = end[0], end[1], end[2]
+        bulk1 = self._bulk(P1, h1)
+        if local.x < 0.0 <= bulk1[1] - self._SATURATION_TARGET:
+            return "saturation", None
+        if local.x < 1.0 <= bulk1[1] - self._SATURATION_TARGET:
+            return "dry vapour", None
+        local1 = self.solve_local(z + step, P1, h1, hs1, bulk1)
+        if not self.dried_out and bulk1[1] < 1.0 and self._dryout_margin(local1)[0] >= 0.0:
+            return "dryout", None
+        return None, (bulk1, local1)
+
+    def _locate(self, event, z, step, P, h, hs, n_par, local, bulk, duty, stop_duty):
+        """Shorten the increment so that it ends on the event (bracketed root on its length)."""
+        cache = {}
+
+        def f(length):
+            end = self._step(z, length, P, h, hs, n_par, local, bulk)
+            end_local = None
+            if event != "duty":
+                bulk1 = self._bulk(end[0], end[1])
+                end_local = (bulk1, self.solve_local(z + length, end[0], end[1], end[2], bulk1))
+            cache[length] = (end, end_local)
+            return self._event_value(event, end, duty, stop_duty, end_local)
+
+        if f(step) <= 0.0:  # the event sits at the very end of the increment
+            return (step,) + cache[step]
+        lo, hi = 0.0, step
+        if f(lo) < 0.0:
+            lo = brentq(f, 0.0, step, xtol=1e-9 * step, rtol=1e-12, maxiter=100)
+        # End on the event's side of the root, so the event has happened at the station.
+        length = lo
+        while f(length) < 0.0 and length < step:
+            length = min(step, length + 1e-9 * step)
+        return (length,) + cache[length]
 
     def _note_ranges_at(self, z, local: _Local):
         if local.regime == "saturated boiling":
@@ -517,6 +613,8 @@ class Marcher:
         dQh = loc0.q * per_len * 0.5 * dz
         hm = h + dQh / m
         Pm = P - (dpf0 + dpg0) * 0.5 * dz
+        if Pm <= 0.02 * P:
+            raise _PressureExhausted(z)
         hsm = self.heating.advance(hs, dQh * n_par)
         bulkm = self._bulk(Pm, hm)
         locm = self.solve_local(z + 0.5 * dz, Pm, hm, hsm, bulkm)
@@ -524,6 +622,8 @@ class Marcher:
         dQ = locm.q * per_len * dz
         h1 = h + dQ / m
         P_pred = P - (dpfm + dpgm) * dz
+        if P_pred <= 0.02 * P:
+            raise _PressureExhausted(z)
         acc = self._momentum_flux(self._bulk(P_pred, h1)) - self._momentum_flux(bulk0)
         P1 = P_pred - acc
         hs1 = self.heating.advance(hs, dQ * n_par)

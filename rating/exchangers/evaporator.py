@@ -192,7 +192,8 @@ def rate_evaporator(case, *, increments=None, progress=None, cancel=None) -> Res
     status = "warnings" if any(w.severity in ("warning", "error") for w in warnings) else "ok"
     message = "rated" if not notes else "; ".join(notes)
     return Result(case.name, case.type, status, message, summary,
-                  profiles_from_stations(primary.stations), tuple(warnings), methods)
+                  profiles_from_stations(primary.stations), tuple(warnings), methods,
+                  extra={"increments": n})
 
 
 def _shoot_counter_current(case, fluid, heating, hs_inlet, march, P0):

@@ -102,6 +102,9 @@ class LiquidHeating(HeatingSide):
     def advance(self, h, duty):
         return h - self.sign * duty / self.mass_flow
 
+    def capacity_rate(self, h):
+        return self.mass_flow * self.fluid.single_phase(self.pressure, self.temperature(h)).cp
+
 
 def shell_geometry(case) -> ShellGeometry:
     """The shell-side geometry of a case for the Bell-Delaware or Kern method."""
