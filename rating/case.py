@@ -187,6 +187,9 @@ class Limits:
     min_nucleate_flux: float = 6300.0
     min_temperature_approach: float = 3.0
     kern_flux_cap: float | None = None
+    # --- thermosiphon limits
+
+    # --- kettle limits
 
     def __post_init__(self):
         from .validation import check_limits
@@ -208,6 +211,9 @@ class Case:
     methods: Methods = field(default_factory=Methods)
     limits: Limits = field(default_factory=Limits)
     increments: int | None = None
+    # --- thermosiphon fields
+
+    # --- kettle fields
 
     def __post_init__(self):
         from .validation import check_case

@@ -49,6 +49,26 @@ def _parser():
     return p
 
 
+# Display of further summary keys by their unit suffix: (suffix, scale, offset, unit).
+_SUFFIXES = (
+    ("_W_m2K", 1.0, 0.0, "W/m2K"), ("_W_m2", 1e-3, 0.0, "kW/m2"), ("_kg_s", 1.0, 0.0, "kg/s"),
+    ("_m_s", 1.0, 0.0, "m/s"), ("_m2", 1.0, 0.0, "m2"), ("_Pa", 1e-3, 0.0, "kPa"),
+    ("_K", 1.0, -273.15, "degC"), ("_W", 1e-3, 0.0, "kW"), ("_pct", 1.0, 0.0, "%"),
+    ("_m", 1.0, 0.0, "m"),
+)
+
+
+def _row_for(key):
+    for suffix, scale, offset, unit in _SUFFIXES:
+        if key.endswith(suffix):
+            label = key[: -len(suffix)].replace("_", " ")
+            if unit == "degC" and not label.startswith(("t ", "temperature")) \
+                    and "temperature" not in label:
+                scale, offset, unit = 1.0, 0.0, "K"       # a temperature difference
+            return key, label[0].upper() + label[1:], scale, offset, unit
+    return key, key.replace("_", " ").capitalize(), 1.0, 0.0, "-"
+
+
 def _fmt(v, scale, offset):
     if v is None:
         return "-"
@@ -62,9 +82,11 @@ def table(result) -> str:
     lines = [f"Case: {result.name}  ({result.type})  status: {result.status}"]
     if result.message and result.message != "rated":
         lines.append(f"  {result.message}")
-    for key, label, scale, offset, unit in _ROWS:
-        if key in result.summary:
-            lines.append(f"  {label:<34} {_fmt(result.summary[key], scale, offset):>14}  {unit}")
+    known = {row[0] for row in _ROWS}
+    rows = [r for r in _ROWS if r[0] in result.summary]
+    rows += [_row_for(k) for k, v in result.summary.items() if k not in known and v is not None]
+    for key, label, scale, offset, unit in rows:
+        lines.append(f"  {label:<34} {_fmt(result.summary[key], scale, offset):>14}  {unit}")
     for w in result.warnings:
         where = f" at z = {w.z_m:.3f} m" if w.z_m is not None else ""
         lines.append(f"  [{w.severity}] {w.code}{where}: {w.message}")

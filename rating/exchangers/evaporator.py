@@ -284,8 +284,8 @@ def _summary(case, tube, heating, hs_inlet, primary, performance, check) -> dict
         "dryout_z_m": primary.dryout_z,
         "exit_pressure_Pa": last.P,
         "steam_flow_kg_s": steam_flow,
-        "performance_duty_W": case.boiling.mass_flow * (performance.stations[-1].h
-                                                        - performance.stations[0].h),
+        "performance_duty_W": None if primary is performance else case.boiling.mass_flow * (
+            performance.stations[-1].h - performance.stations[0].h),
         "required_duty_W": case.required_duty,
         "required_area_m2": None,
         "u_required_W_m2K": None,
