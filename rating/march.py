@@ -215,6 +215,8 @@ class Marcher:
         if "D" in self.void.options:
             self.void_options["D"] = tube.D_i
         self.range_notes: dict[str, float] = {}
+        self._sat_dicts: dict[float, dict] = {}
+        self._q_guess = 0.0
         self.dried_out = False
         self.dryout_z: float | None = None
         self.dryout_cause: str | None = None
@@ -237,38 +239,63 @@ class Marcher:
         for msg in method.out_of_range(available):
             self.range_notes.setdefault(msg, z)
 
-    def _boiling_surface(self, q, P, h, sat, x, T_b, regime, single_props):
-        """Surface temperature and film coefficients at flux q for a fixed regime."""
+    def _sat_inputs(self, sat) -> dict:
+        """The saturation set as a dict for registry dispatch (kept per set)."""
+        d = self._sat_dicts.get(sat.P)
+        if d is None or d["T_sat"] != sat.T_sat:
+            if len(self._sat_dicts) > 4096:
+                self._sat_dicts.clear()
+            d = self._sat_dicts[sat.P] = sat.as_dict()
+        return d
+
+    def _surface_law(self, sat, x, T_b, regime, single_props):
+        """For a fixed regime and bulk state: T_surface(q), and the film coefficients at q.
+
+        Everything that does not depend on the flux is computed once here, outside
+        the root on q.
+        """
         t = self.tube
         G = t.G
-        if q <= 0.0:
-            return T_b, 0.0, 0.0, 0.0
         if regime in ("subcooled liquid", "subcooled boiling"):
             rho, mu, k, cp = single_props
             htc_l = htc_tube_single_phase(G, t.D_i, mu, k, cp, method=t.single_phase_tube)
-            avail = sat.as_dict()
-            avail.update(q=q)
-            htc_pool = self.nb(avail)
-            T_s = self.sub.function(q, T_b, sat.T_sat, htc_l, htc_pool, G, t.D_i, mu)
-            return T_s, q / max(T_s - T_b, 1e-9), htc_pool, htc_l
+            avail = dict(self._sat_inputs(sat))
+            nb, sub = self.nb, self.sub.function
+
+            def T_s(q):
+                if q <= 0.0:
+                    return T_b
+                avail["q"] = q
+                return sub(q, T_b, sat.T_sat, htc_l, nb(avail), G, t.D_i, mu)
+
+            def films(q):
+                avail["q"] = max(q, 1e-9)
+                return (q / max(T_s(q) - T_b, 1e-9) if q > 0 else htc_l), nb(avail), htc_l
+            return T_s, films
         if regime == "saturated boiling":
-            avail = sat.as_dict()
             xx = min(max(x, 1e-4), 0.9999)
-            avail.update(G=G, x=xx, D=t.D_i, q=q, **self.fb_inputs)
-            htc = flow_boiling_htc(self.fb.name, avail, q, sat.dp_sat, **self.fb_options)
-            htc_l = htc_tube_single_phase(G * (1.0 - xx), t.D_i, sat.mu_l, sat.k_l, sat.cp_l,
-                                          method="dittus_boelter_1930")
-            htc_pool = self.nb(avail)
-            return sat.T_sat + q / htc, htc, htc_pool, htc_l
+            avail = dict(self._sat_inputs(sat), G=G, x=xx, D=t.D_i, **self.fb_inputs)
+            name, opts, dp_sat = self.fb.name, self.fb_options, sat.dp_sat
+
+            def htc_at(q):
+                return flow_boiling_htc(name, avail, q, dp_sat, **opts)
+
+            def T_s(q):
+                return sat.T_sat if q <= 0.0 else sat.T_sat + q / htc_at(q)
+
+            def films(q):
+                q = max(q, 1e-9)
+                htc_l = htc_tube_single_phase(G * (1.0 - xx), t.D_i, sat.mu_l, sat.k_l,
+                                              sat.cp_l, method="dittus_boelter_1930")
+                return htc_at(q), self.nb(dict(avail, q=q)), htc_l
+            return T_s, films
         if regime == "post-dryout":
-            avail = sat.as_dict()
-            avail.update(G=G, x=min(max(x, 0.0), 1.0), D=t.D_i)
+            avail = dict(self._sat_inputs(sat), G=G, x=min(max(x, 0.0), 1.0), D=t.D_i)
             htc = self.post(avail)
-            return T_b + q / htc, htc, 0.0, htc
-        # superheated vapour
-        rho, mu, k, cp = single_props
-        htc = htc_tube_single_phase(G, t.D_i, mu, k, cp, method=t.single_phase_tube)
-        return T_b + q / htc, htc, 0.0, htc
+        else:  # superheated vapour
+            rho, mu, k, cp = single_props
+            htc = htc_tube_single_phase(G, t.D_i, mu, k, cp, method=t.single_phase_tube)
+        return (lambda q: T_b + max(q, 0.0) / htc), (lambda q: (htc, 0.0, htc))
 
     def _regime(self, x):
         if self.dried_out:
@@ -289,29 +316,59 @@ class Marcher:
         ratio = t.D_i / t.D_o
         R_fixed = t.fouling_inner + t.wall_resistance_inner + ratio * t.fouling_outer
 
+        T_s_of, films = self._surface_law(sat, x, T_b, regime, single)
+
         def resid(q):
-            T_s = self._boiling_surface(q, P, h, sat, x, T_b, regime, single)[0]
-            return T_h - T_s - q * R_fixed - film(q * ratio)
+            return T_h - T_s_of(q) - q * R_fixed - film(q * ratio)
 
         if T_h <= T_b + 1e-9:
             q = 0.0
         else:
-            q_hi = (T_h - T_b) / R_fixed
-            r_hi = resid(q_hi)
-            if r_hi > 0.0:  # the film resistances are negligible: the wall takes it all
-                q = q_hi
-            else:
-                q = brentq(resid, 0.0, q_hi, xtol=1e-3, rtol=1e-7, maxiter=200)
-        T_s, htc, htc_nb, htc_conv = self._boiling_surface(q, P, h, sat, x, T_b, regime, single)
+            q = self._root_flux(resid, (T_h - T_b) / R_fixed)
+        T_s = T_s_of(q)
+        htc, htc_nb, htc_conv = films(q) if q > 0.0 else (0.0, 0.0, 0.0)
         if regime == "subcooled liquid" and T_s > sat.T_sat:
             regime = "subcooled boiling"
+        self._q_guess = q
         return _Local(regime, q, T_s, htc, htc_nb, htc_conv, film(q * ratio), x, T_b,
                       sat.T_sat, sat)
+
+    def _root_flux(self, resid, q_hi):
+        """The local flux: bracketed root of the series-resistance balance on [0, q_hi].
+
+        resid(0) > 0 and resid falls with q. The flux of the last local solution is
+        the first guess: a narrow bracket around it is widened until it holds the
+        root (neighbouring states differ by a few per cent), else the full one is used.
+        """
+        guess = self._q_guess
+        lo, hi = 0.0, q_hi
+        if 0.0 < guess < q_hi:
+            width = 0.03
+            r_lo = None
+            while width < 1.0:
+                a, b = guess * (1.0 - width), min(guess * (1.0 + width), q_hi)
+                r_a = resid(a) if r_lo is None or a != lo else r_lo
+                if r_a <= 0.0:
+                    hi = a
+                    width *= 4.0
+                    continue
+                lo, r_lo = a, r_a
+                r_b = resid(b)
+                if r_b <= 0.0:
+                    hi = b
+                    break
+                lo = b
+                if b >= q_hi:
+                    return q_hi  # the film resistances are negligible: the wall takes it all
+                width *= 4.0
+        if hi == q_hi and resid(q_hi) > 0.0:
+            return q_hi
+        return brentq(resid, lo, hi, xtol=1e-9 * max(guess, 1.0), rtol=1e-6, maxiter=200)
 
     # ---- local checks and derived values
     def _critical_flux(self, P, x, sat):
         t = self.tube
-        avail = sat.as_dict()
+        avail = dict(self._sat_inputs(sat))
         avail.update(P=P, G=t.G, x=x if x > 0.0 or self.chf.name == "groeneveld_2006" else 1e-4,
                      D=t.D_i)
         return self.chf(avail), avail
@@ -352,7 +409,7 @@ class Marcher:
             return 0.0
         if x >= 1.0:
             return 1.0
-        avail = sat.as_dict()
+        avail = dict(self._sat_inputs(sat))
         avail.update(x=x, G=self.tube.G, D=self.tube.D_i)
         return min(max(self.void(avail, **self.void_options), 0.0), 1.0)
 
@@ -363,7 +420,7 @@ class Marcher:
             return "single-phase vapour"
         if self.pattern is None:
             return "mist" if self.dried_out else ("annular" if alpha > 0.8 else "intermittent")
-        avail = sat.as_dict()
+        avail = dict(self._sat_inputs(sat))
         avail.update(G=self.tube.G, x=x, D=self.tube.D_i, q=max(q, 1.0))
         opts = {"z": max(z, 1e-3)} if "z" in self.pattern.options else {}
         pattern = self.pattern(avail, **opts)
@@ -378,7 +435,7 @@ class Marcher:
         G = t.G
         sin_theta = 1.0 if t.vertical else 0.0
         if 0.0 < x < 1.0:
-            avail = sat.as_dict()
+            avail = dict(self._sat_inputs(sat))
             avail.update(G=G, x=x, D=t.D_i)
             opts = {"roughness": t.roughness} if "roughness" in self.fric.options else {}
             dpf = self.fric(avail, **opts)
@@ -597,7 +654,7 @@ class Marcher:
 
     def _note_ranges_at(self, z, local: _Local):
         if local.regime == "saturated boiling":
-            avail = local.sat.as_dict()
+            avail = dict(self._sat_inputs(local.sat))
             avail.update(G=self.tube.G, x=min(max(local.x, 1e-4), 0.9999), D=self.tube.D_i,
                          q=max(local.q, 1.0), **self.fb_inputs)
             self._note_range(self.fb, avail, z)
@@ -656,15 +713,22 @@ def solve_counter_current(march, h_low, h_inlet) -> MarchOutcome:
         return out.end_heating_state - h_inlet
 
     try:
-        if resid(h_inlet) <= 0.0:  # nothing transferred: the inlet state is the answer
+        r_in = resid(h_inlet)
+        if r_in <= 0.0:  # nothing transferred: the inlet state is the answer
             return seen[h_inlet]
-        if resid(h_low) > 0.0:
-            out = seen[h_low]
-            out.status = "failed"
-            out.message = ("no counter-current solution: the heating medium cannot be cooled "
-                           "to the boiling inlet temperature")
-            return out
-        h_start = brentq(resid, h_low, h_inlet, xtol=1e-7 * span, rtol=1e-12, maxiter=100)
+        # With the medium leaving at its inlet state the duty is too large; leaving
+        # colder by that duty, it is too small (the medium is colder everywhere): a
+        # narrow bracket from two marches, and the full one only if that fails.
+        lo = max(h_low, h_inlet - r_in)
+        if resid(lo) > 0.0:
+            if lo == h_low or resid(h_low) > 0.0:
+                out = seen[h_low]
+                out.status = "failed"
+                out.message = ("no counter-current solution: the heating medium cannot be "
+                               "cooled to the boiling inlet temperature")
+                return out
+            lo = h_low
+        h_start = brentq(resid, lo, h_inlet, xtol=2e-6 * span, rtol=1e-12, maxiter=100)
     except _MarchFailed as exc:
         return exc.outcome
     return seen.get(h_start) or march(h_start)

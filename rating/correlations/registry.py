@@ -15,6 +15,7 @@ from __future__ import annotations
 import inspect
 import math
 from dataclasses import dataclass, field
+from functools import cached_property
 from typing import Callable, Mapping
 
 from .dimensionless import g
@@ -108,7 +109,7 @@ class Method:
     references: tuple[str, ...] = ()
     notes: str = ""
 
-    @property
+    @cached_property
     def inputs(self) -> tuple[str, ...]:
         """Required (positional-or-keyword, no default) argument names."""
         sig = inspect.signature(self.function)
@@ -118,7 +119,7 @@ class Method:
             and p.kind in (p.POSITIONAL_OR_KEYWORD, p.KEYWORD_ONLY)
         )
 
-    @property
+    @cached_property
     def options(self) -> tuple[str, ...]:
         """Optional (keyword) argument names."""
         sig = inspect.signature(self.function)

@@ -120,9 +120,17 @@ def heating_side(case):
         return side, None
     spec = {"name": "user table", "table": hm.fluid} if isinstance(hm.fluid, dict) else hm.fluid
     fluid = make_fluid(spec)
+    # The medium stays between the coldest boiling temperature and its own inlet; the
+    # shooting's trial starts also run it past its inlet, hence the margin above.
+    boiling = make_fluid(case.boiling.fluid)
+    T_cold = case.boiling.inlet_temperature or boiling.saturation(case.boiling.inlet_pressure).T_sat
+    span = hm.inlet_temperature - T_cold
+    T_range = (max(T_cold - 5.0, getattr(fluid, "T_min", T_cold - 5.0)),
+               hm.inlet_temperature + max(1.0, span))
     side = LiquidHeating(fluid, hm.pressure, hm.mass_flow,
                          counter_current=hm.flow_arrangement == "counter",
-                         shell_geometry=shell_geometry(case), method=case.methods.shell_side)
+                         shell_geometry=shell_geometry(case), method=case.methods.shell_side,
+                         temperature_range=T_range)
     return side, fluid.enthalpy(hm.pressure, hm.inlet_temperature)
 
 
