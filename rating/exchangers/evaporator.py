@@ -109,6 +109,20 @@ def inlet_enthalpy(case, fluid) -> float:
     return sat.h_l + (b.inlet_quality or 0.0) * sat.h_lv
 
 
+def condensate_film(outcome, tube, heating):
+    """Condensate flow per unit perimeter along the tube [kg/m/s], from a finished march.
+
+    Steam condenses from the top (z = L) down, so the film at z carries the
+    condensate formed above it: (Q(L) - Q(z)) / (h_lv N pi D_o).
+    """
+    st = outcome.stations
+    total = st[-1].duty
+    perimeter = tube.tubes_in_parallel * math.pi * tube.D_o
+    z = [s.z for s in st]
+    film = [(total - s.duty) / (heating.sat.h_lv * perimeter) for s in st]
+    return z, film
+
+
 def heating_side(case):
     """The heating medium model and its inlet state."""
     hm, t = case.heating, case.tubes
@@ -165,10 +179,26 @@ def rate_evaporator(case, *, increments=None, progress=None, cancel=None) -> Res
     prog = _Progress(progress)
     notes: list[str] = []
 
+    local_condensation = isinstance(heating, SteamHeating) and tube.vertical \
+        and case.tubes.passes == 1
+
     def march(hs_start, *, stop_duty=None, share=(0.0, 1.0)):
-        m = Marcher(tube, heating, path, n, progress=prog.part(*share), cancel=cancel)
         max_len = path * DUTY_CHECK_LENGTH_FACTOR if stop_duty is not None else None
-        return m.run(P0, h0, hs_start, stop_duty=stop_duty, max_length=max_len)
+        if not local_condensation:
+            m = Marcher(tube, heating, path, n, progress=prog.part(*share), cancel=cancel)
+            return m.run(P0, h0, hs_start, stop_duty=stop_duty, max_length=max_len)
+        # Vertical tubes on steam: a first march with Nusselt's mean coefficient gives
+        # the condensate film along the tube; the second uses the local film law.
+        half = (share[0], 0.5 * share[1])
+        heating._profile = None
+        first = Marcher(tube, heating, path, n, progress=prog.part(*half), cancel=cancel).run(
+            P0, h0, hs_start, stop_duty=stop_duty, max_length=max_len)
+        if first.status != "ok":
+            return first
+        heating.use_condensate_profile(*condensate_film(first, tube, heating))
+        second = (share[0] + half[1], half[1])
+        return Marcher(tube, heating, path, n, progress=prog.part(*second), cancel=cancel).run(
+            P0, h0, hs_start, stop_duty=stop_duty, max_length=max_len)
 
     try:
         if hs_inlet is None or case.heating.flow_arrangement == "co":

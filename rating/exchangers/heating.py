@@ -39,6 +39,34 @@ class SteamHeating(HeatingSide):
         self.method = method
         # Nusselt: htc ~ dT^(-1/4), so q = C dT^(3/4) and dT = (q/C)^(4/3).
         self.C = htc_1K
+        self._profile = None
+
+    def use_condensate_profile(self, z, film_flow):
+        """Use the local film coefficient for a known condensate film along the tube.
+
+        ``film_flow[i]`` is the condensate flow per unit wetted perimeter at height
+        ``z[i]`` [kg/m/s] (steam condenses downward from the top, so it grows toward
+        z = 0). The coefficient then follows the local film Reynolds number with
+        Nusselt's laminar, Kutateladze's wavy-laminar and Labuntsov's turbulent laws
+        (``nusselt_kutateladze_labuntsov_local``) instead of Nusselt's mean value.
+        """
+        s = self.sat
+        local = registry.get("nusselt_kutateladze_labuntsov_local")
+        self.method = local
+        # Near the top edge the film is vanishingly thin; Re_f >= 1 keeps it finite.
+        htc = [local.function(max(4.0 * g / s.mu_l, 1.0), s.rho_l, s.rho_v, s.mu_l, s.k_l,
+                              s.cp_l) for g in film_flow]
+        self._profile = (list(z), htc)
+
+    def _local_htc(self, z):
+        zs, htc = self._profile
+        if z <= zs[0]:
+            return htc[0]
+        if z >= zs[-1]:
+            return htc[-1]
+        i = bisect.bisect_right(zs, z) - 1
+        w = (z - zs[i]) / (zs[i + 1] - zs[i]) if zs[i + 1] > zs[i] else 0.0
+        return htc[i] + w * (htc[i + 1] - htc[i])
 
     def temperature(self, state):
         return self.T
@@ -47,9 +75,14 @@ class SteamHeating(HeatingSide):
         return (max(q_outer, 0.0) / self.C) ** (4.0 / 3.0)
 
     def film(self, state, T_h, z):
+        if self._profile is not None:
+            htc = self._local_htc(z)
+            return lambda q_outer: q_outer / htc
         return self._dT
 
     def film_htc(self, state, T_h, z, q_outer):
+        if self._profile is not None:
+            return self._local_htc(z)
         dT = self._dT(q_outer)
         return q_outer / dT if dT > 0.0 else self.C
 
