@@ -157,8 +157,12 @@ def methods_used(tube: BoilingTube, case, heating) -> tuple[MethodUsed, ...]:
         ("tube_dryout", tube.tube_dryout), ("single_phase_tube", tube.single_phase_tube),
         ("friction_factor", "colebrook_1939"), ("flow_pattern", tube.flow_pattern_method),
     ]
-    names.append(("condensation", heating.method.name) if isinstance(heating, SteamHeating)
-                 else ("shell_side", heating.method.name))
+    if isinstance(heating, SteamHeating):
+        names.append(("condensation", heating.method.name))
+        if tube.vertical and case.tubes.passes == 1:
+            names.append(("condensation", "nusselt_kutateladze_labuntsov_local"))
+    else:
+        names.append(("shell_side", heating.method.name))
     out = []
     for family, name in names:
         m = registry.get(name)

@@ -52,7 +52,6 @@ class SteamHeating(HeatingSide):
         """
         s = self.sat
         local = registry.get("nusselt_kutateladze_labuntsov_local")
-        self.method = local
         # Near the top edge the film is vanishingly thin; Re_f >= 1 keeps it finite.
         htc = [local.function(max(4.0 * g / s.mu_l, 1.0), s.rho_l, s.rho_v, s.mu_l, s.k_l,
                               s.cp_l) for g in film_flow]
