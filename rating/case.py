@@ -115,10 +115,16 @@ class BoilingStream:
 
     Give either ``inlet_temperature`` (subcooled liquid) or ``inlet_quality``
     (saturated, 0 <= x < 1); with neither the inlet is saturated liquid.
+
+    For a thermosiphon (``Case.type = "thermosiphon"``) the stream is the column's:
+    ``inlet_pressure`` is the column vapour-space pressure, ``inlet_temperature``
+    the column-base liquid temperature (None: saturated at that pressure), and
+    ``mass_flow`` may be None; it is not used, since the circulation follows
+    from the loop's pressure balance (see ``ThermosiphonLoop``).
     """
 
     fluid: str
-    mass_flow: float
+    mass_flow: float | None
     inlet_pressure: float
     inlet_temperature: float | None = None
     inlet_quality: float | None = None
@@ -188,12 +194,181 @@ class Limits:
     min_temperature_approach: float = 3.0
     kern_flux_cap: float | None = None
     # --- thermosiphon limits
+    thermosiphon_max_exit_quality: float = 0.25
+    thermosiphon_max_exit_quality_aqueous: float = 0.10
+    thermosiphon_circulation_ratio_min: float = 5.0
+    thermosiphon_circulation_ratio_max: float = 20.0
+    thermosiphon_max_flux: float | None = None
+    thermosiphon_level_min_fraction: float = 0.5
+    thermosiphon_level_max_fraction: float = 1.0
+    thermosiphon_level_min_fraction_vacuum: float = 0.5
+    thermosiphon_level_max_fraction_vacuum: float = 0.7
+    thermosiphon_min_pressure: float = 30e3
+    thermosiphon_nozzle_rho_v2: float = 8928.0
+    thermosiphon_max_subcooled_fraction: float = 0.25
 
     # --- kettle limits
+    kettle_bundle_flux_ratio: float = 1.0
+    kettle_min_bundle_factor: float = 0.1
+    kettle_surface_velocity_constant: float = 0.2
+    kettle_min_freeboard: float = 0.25
+    kettle_min_level_over_bundle: float = 0.0
+    kettle_vapour_nozzle_rho_v2: float = 5953.0
+    kettle_inlet_nozzle_rho_v2: float = 744.0
 
     def __post_init__(self):
         from .validation import check_limits
         check_limits(self)
+
+
+# --- thermosiphon loop -------------------------------------------------------------
+
+@dataclass(frozen=True)
+class ThermosiphonLoop:
+    """The circulation loop of a recirculating vertical thermosiphon reboiler.
+
+    Heights are measured from the bottom tube sheet; lengths are developed
+    (straight-run) lengths; diameters are inner diameters. The column side comes
+    from ``Case.boiling``: ``inlet_pressure`` is the column vapour-space
+    pressure and ``inlet_temperature`` the column-base liquid temperature (None:
+    saturated liquid; a colder value is the column liquid's subcooling).
+
+    ``liquid_level``: the column liquid surface above the bottom tube sheet, the
+    driving head. ``return_line_rise``: the return nozzle on the column above the
+    top tube sheet. Loss coefficients K multiply a velocity head rho v^2/2
+    (homogeneous for two-phase flow); between two plenums (column, bottom channel,
+    top channel) the velocity heads themselves cancel, so each K here is the
+    irreversible part only. Defaults:
+
+    * ``inlet_line_k`` 0.5: sharp-edged entrance from the column base (Crane
+      Technical Paper 410); add the line's fittings (elbows, valves) to it.
+    * ``bottom_channel_k`` 1.0, on the inlet-nozzle velocity: sudden expansion into
+      the channel, the whole velocity head lost (Borda-Carnot, area ratio -> 0).
+    * ``tube_entrance_k`` 0.5: sharp-edged contraction from the channel into the
+      tubes (Crane TP-410); the reversible acceleration is counted on top.
+    * ``tube_exit_k`` 1.0: sudden expansion into the top channel (Borda-Carnot);
+      it cancels the recovery of the exit velocity head, so the net is zero.
+    * ``return_line_k`` 1.5: 0.5 entering the outlet nozzle from the top channel
+      plus 1.0 discharging into the column; add the line's fittings.
+    * ``line_roughness`` 4.6e-5 m: commercial steel pipe (Moody 1944).
+
+    The nozzle diameters default to the line diameters; they set the nozzle
+    velocities (the bottom-channel loss and the rho v^2 checks).
+    """
+
+    liquid_level: float
+    inlet_line_diameter: float
+    inlet_line_length: float
+    return_line_diameter: float
+    return_line_length: float
+    return_line_rise: float
+    inlet_line_k: float = 0.5
+    bottom_channel_k: float = 1.0
+    tube_entrance_k: float = 0.5
+    tube_exit_k: float = 1.0
+    return_line_k: float = 1.5
+    inlet_nozzle_diameter: float | None = None
+    outlet_nozzle_diameter: float | None = None
+    line_roughness: float = 4.6e-5
+
+    def __post_init__(self):
+        from .validation import check_thermosiphon
+        check_thermosiphon(self)
+
+    @property
+    def inlet_nozzle(self) -> float:
+        """Inlet nozzle inner diameter [m] (the inlet line's unless given)."""
+        return self.inlet_nozzle_diameter or self.inlet_line_diameter
+
+    @property
+    def outlet_nozzle(self) -> float:
+        """Outlet nozzle inner diameter [m] (the return line's unless given)."""
+        return self.outlet_nozzle_diameter or self.return_line_diameter
+
+
+# --- kettle shell ------------------------------------------------------------------
+
+KETTLE_TUBE_FORMS = ("u-tube", "straight")
+
+
+@dataclass(frozen=True)
+class KettleShell:
+    """The shell side of a kettle reboiler (TEMA K shell): a submerged horizontal bundle.
+
+    The boiling fluid is outside the tubes, in a pool held by an overflow weir; the
+    heating medium (``Case.heating``: condensing steam or a hot liquid) flows inside
+    the tubes, pass after pass. With it:
+
+    * ``Case.boiling``: ``inlet_pressure`` is the vapour-space pressure, ``mass_flow``
+      the feed, entering subcooled (``inlet_temperature``) or saturated
+      (``inlet_quality``, or neither for saturated liquid).
+    * ``Case.tubes``: horizontal; ``count`` is the number of tube ends in the
+      tubesheet (two per U-tube), ``length`` the straight heated length of one
+      leg or pass (U-bends not counted), ``passes`` the tube-side passes (even for
+      U-tubes), ``pitch`` (default 1.25 x the outer diameter) and ``layout_angle``.
+    * ``Case.heating``: ``fouling_resistance`` is the tube-side (inside) fouling,
+      ``Case.boiling.fouling_resistance`` the shell-side (outside) one.
+      ``flow_arrangement`` has no meaning for a kettle (the pool is well mixed) and
+      is ignored. For steam, ``mass_flow`` None means a steam trap: the flow is
+      what condenses, leaving as condensate (wet by 0.2 +- 0.1 % of the steam, so
+      that no sliver of subcooled condensate ends the path); a given steam flow may
+      leave wet or flood the last tubes with condensate.
+    * ``Case.shell`` must be None: the kettle shell is described here.
+
+    Heights are measured from the bottom of the kettle shell. The port and kettle
+    shells are taken bottom-aligned (eccentric cone) with the bundle centred in the
+    port shell, so the bundle spans ``(port - bundle)/2`` to ``(port + bundle)/2``.
+
+    Parameters (SI): ``kettle_diameter`` inner diameter of the enlarged shell [m];
+    ``port_diameter`` inner diameter of the port (bundle) shell [m];
+    ``bundle_diameter`` outer tube limit of the bundle [m]; ``weir_height`` top of
+    the overflow weir [m]; ``tube_form`` "u-tube" or "straight";
+    ``estimate_tube_count`` True replaces ``tubes.count`` by the number of tubes that
+    fit the bundle diameter (Phadke 1984, with pass-lane allowance);
+    ``vapour_nozzle_diameter`` inner diameter of each of ``vapour_nozzles`` vapour
+    outlets [m]; ``liquid_inlet_nozzle_diameter`` and ``liquid_outlet_nozzle_diameter``
+    feed inlet and overflow outlet [m] (None: not checked);
+    ``bundle_boiling_factor`` Palen's F_b on the nucleate coefficient for the
+    vapour-driven circulation in a bundle [-] (1.5, the value of the Wolverine
+    Engineering Data Book kettle example after Palen); ``boiling_range`` dew minus
+    bubble point of the pool liquid [K] (0 for a pure fluid: no mixture correction;
+    the property library holds pure fluids only, so a narrow-boiling mixture is
+    rated on a pure surrogate and its boiling range given here);
+    ``mixture_method`` the mixture correction (registry family "mixture");
+    ``bundle_max_flux`` the bundle maximum-flux method (family "bundle_chf");
+    ``heating_htc`` a fixed tube-side film coefficient on the inside surface
+    [W/m^2/K] in place of the in-tube correlation (a book's or a vendor's value).
+    """
+
+    kettle_diameter: float
+    port_diameter: float
+    bundle_diameter: float
+    weir_height: float
+    tube_form: str = "u-tube"
+    estimate_tube_count: bool = False
+    vapour_nozzle_diameter: float | None = None
+    vapour_nozzles: int = 1
+    liquid_inlet_nozzle_diameter: float | None = None
+    liquid_outlet_nozzle_diameter: float | None = None
+    bundle_boiling_factor: float = 1.5
+    boiling_range: float = 0.0
+    mixture_method: str = "palen_small_mixture_factor"
+    bundle_max_flux: str = "palen_1983"
+    heating_htc: float | None = None
+
+    def __post_init__(self):
+        from .validation import check_kettle
+        check_kettle(self)
+
+    @property
+    def bundle_bottom(self) -> float:
+        """Height of the bottom of the bundle above the kettle bottom [m]."""
+        return 0.5 * (self.port_diameter - self.bundle_diameter)
+
+    @property
+    def bundle_top(self) -> float:
+        """Height of the top of the bundle above the kettle bottom [m]."""
+        return 0.5 * (self.port_diameter + self.bundle_diameter)
 
 
 @dataclass(frozen=True)
@@ -212,8 +387,10 @@ class Case:
     limits: Limits = field(default_factory=Limits)
     increments: int | None = None
     # --- thermosiphon fields
+    thermosiphon: ThermosiphonLoop | None = None
 
     # --- kettle fields
+    kettle: KettleShell | None = None
 
     def __post_init__(self):
         from .validation import check_case

@@ -26,6 +26,70 @@ LIMIT_SOURCES = {
     "kern_flux_cap": (None, "W/m^2", "Kern (1950), Process Heat Transfer ch. 15: 37.9 kW/m^2 "
                       "natural circulation with organics, 63 kW/m^2 forced circulation with "
                       "organics, 95 kW/m^2 aqueous; a screening cap, off by default"),
+    # --- thermosiphon limits
+    "thermosiphon_max_exit_quality": (0.25, "-", "Vertical thermosiphons are commonly designed "
+                                      "for 5-25 wt% vapour at the outlet (a circulation ratio of "
+                                      "5-20): Buckley, Luyben & Shunta, Design of Distillation "
+                                      "Column Control Systems (1985), as reproduced on the web"),
+    "thermosiphon_max_exit_quality_aqueous": (0.10, "-", "Aqueous thermosiphons run at an exit "
+                                              "vapour mass fraction of about 0.02-0.10 (common "
+                                              "practice, often attributed to Fair 1960)"),
+    "thermosiphon_circulation_ratio_min": (5.0, "-", "Circulation ratio (kg liquid per kg "
+                                           "vapour) usually 5-20: Buckley, Luyben & Shunta "
+                                           "(1985)"),
+    "thermosiphon_circulation_ratio_max": (20.0, "-", "Circulation ratio usually 5-20: Buckley, "
+                                           "Luyben & Shunta (1985)"),
+    "thermosiphon_max_flux": (None, "W/m^2", "Mean heat flux of a natural-circulation "
+                              "reboiler; None applies Kern's limits (Process Heat Transfer, 1950, "
+                              "ch. 15): 37.9 kW/m^2 (12,000 Btu/h ft^2) for organics, 94.6 kW/m^2 "
+                              "(30,000) for water; conservative screening values"),
+    "thermosiphon_level_min_fraction": (0.5, "-", "Column-base level between mid-height and the "
+                                        "top tube sheet (flux is highest near 1/3 of the tube "
+                                        "length and falls fast below): Buckley, Luyben & Shunta "
+                                        "(1985)"),
+    "thermosiphon_level_max_fraction": (1.0, "-", "Level at most at the top tube sheet; there the "
+                                        "flux is some 10-15 % below its maximum: Buckley, Luyben "
+                                        "& Shunta (1985)"),
+    "thermosiphon_level_min_fraction_vacuum": (0.5, "-", "Below atmospheric pressure, a level of "
+                                               "about 50-70 % of the tube length ('Thermosyphon "
+                                               "reboiler', Chemical Engineering World)"),
+    "thermosiphon_level_max_fraction_vacuum": (0.7, "-", "Below atmospheric pressure, a level of "
+                                               "about 50-70 % of the tube length ('Thermosyphon "
+                                               "reboiler', Chemical Engineering World)"),
+    "thermosiphon_min_pressure": (30e3, "Pa", "Thermosiphons are not normally specified below "
+                                  "about 0.3 bar: static head suppresses boiling (Sinnott, "
+                                  "Coulson & Richardson Vol. 6, as taught in course notes)"),
+    "thermosiphon_nozzle_rho_v2": (8928.0, "kg/m/s^2", "TEMA: tube-side nozzles rho v^2 <= "
+                                   "6,000 lb/ft s^2 (8,928 kg/m s^2)"),
+    "thermosiphon_max_subcooled_fraction": (0.25, "-", "Ebullio's default for a long sensible-"
+                                            "heating zone: in a typical unit pure liquid fills "
+                                            "only a few inches above the bottom tube sheet "
+                                            "(Buckley, Luyben & Shunta 1985); static head "
+                                            "lengthens the zone (Arneth & Stichlmair 2001)"),
+    # --- kettle limits
+    "kettle_bundle_flux_ratio": (1.0, "-", "Average bundle heat flux at most the bundle maximum "
+                                 "flux (Palen 1983, single-tube maximum x bundle geometry factor; "
+                                 "the Wolverine Engineering Data Book kettle example compares the "
+                                 "two directly). Sinnott (Coulson & Richardson Vol. 6) designs to "
+                                 "0.7 of the Palen-Small maximum"),
+    "kettle_min_bundle_factor": (0.1, "-", "Palen's bundle geometry factor Phi_b below 0.1 calls "
+                                 "for vapour lanes or a wider pitch (Wolverine Engineering Data "
+                                 "Book, kettle example, after Palen & Small 1964)"),
+    "kettle_surface_velocity_constant": (0.2, "m/s", "Vapour velocity at the liquid surface at "
+                                         "most 0.2 [(rho_l - rho_v)/rho_v]^0.5 m/s against "
+                                         "entrainment (Sinnott, Coulson & Richardson Vol. 6, "
+                                         "eq. 12.75)"),
+    "kettle_min_freeboard": (0.25, "m", "Freeboard between the liquid level and the top of the "
+                             "kettle shell at least 0.25 m (Sinnott, Coulson & Richardson Vol. 6)"),
+    "kettle_min_level_over_bundle": (0.0, "m", "The overflow weir holds the level so that it just "
+                                     "covers the top of the bundle (common practice); uncovered "
+                                     "tubes are rated as if submerged in the froth"),
+    "kettle_vapour_nozzle_rho_v2": (5953.0, "kg/m/s^2", "TEMA RCB-4.62: rho v^2 at shell and "
+                                    "bundle entrance and exit areas at most 4,000 lb/ft s^2 "
+                                    "(5,953 kg/m s^2), applied at the vapour outlet"),
+    "kettle_inlet_nozzle_rho_v2": (744.0, "kg/m/s^2", "TEMA RCB-4.61: impingement protection at "
+                                   "the shell inlet above 500 lb/ft s^2 (744 kg/m s^2) for liquids "
+                                   "at their boiling point"),
 }
 
 # Pool critical heat flux used for the critical wall superheat: Lienhard & Dhir (1973).

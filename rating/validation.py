@@ -182,7 +182,7 @@ def check_shell(shell) -> None:
 def check_boiling(stream) -> None:
     """Fluid name, flow, inlet state and fouling of a ``BoilingStream``."""
     _text("fluid", stream.fluid, "a fluid name")
-    _positive("mass_flow", stream.mass_flow, "kg/s")
+    _optional(_positive, "mass_flow", stream.mass_flow, "kg/s")  # required by type: check_case
     _positive("inlet_pressure", stream.inlet_pressure, "Pa")
     _optional(_positive, "inlet_temperature", stream.inlet_temperature, "K")
     _optional(_between, "inlet_quality", stream.inlet_quality, "", 0.0, 1.0, hi_closed=False)
@@ -259,6 +259,197 @@ def check_limits(limits) -> None:
     _non_negative("min_nucleate_flux", limits.min_nucleate_flux, "W/m^2")
     _non_negative("min_temperature_approach", limits.min_temperature_approach, "K")
     _optional(_positive, "kern_flux_cap", limits.kern_flux_cap, "W/m^2")
+    # --- thermosiphon limits
+    for name in ("thermosiphon_max_exit_quality", "thermosiphon_max_exit_quality_aqueous"):
+        _between(name, getattr(limits, name), "", 0.0, 1.0, lo_closed=False,
+                 note="vapour mass fraction at the tube exit")
+    lo = _positive("thermosiphon_circulation_ratio_min", limits.thermosiphon_circulation_ratio_min, "")
+    if _positive("thermosiphon_circulation_ratio_max", limits.thermosiphon_circulation_ratio_max,
+                 "") <= lo:
+        _fail("thermosiphon_circulation_ratio_max", limits.thermosiphon_circulation_ratio_max, "",
+              f"must be > thermosiphon_circulation_ratio_min ({lo:g})")
+    _optional(_positive, "thermosiphon_max_flux", limits.thermosiphon_max_flux, "W/m^2")
+    for band in ("", "_vacuum"):
+        lo_name = f"thermosiphon_level_min_fraction{band}"
+        hi_name = f"thermosiphon_level_max_fraction{band}"
+        lo = _between(lo_name, getattr(limits, lo_name), "", 0.0, 2.0,
+                      note="fraction of the tube length")
+        hi = _between(hi_name, getattr(limits, hi_name), "", 0.0, 2.0,
+                      note="fraction of the tube length")
+        if hi <= lo:
+            _fail(hi_name, hi, "", f"must be > {lo_name} ({lo:g})")
+    _non_negative("thermosiphon_min_pressure", limits.thermosiphon_min_pressure, "Pa")
+    _positive("thermosiphon_nozzle_rho_v2", limits.thermosiphon_nozzle_rho_v2, "kg/m/s^2")
+    _between("thermosiphon_max_subcooled_fraction", limits.thermosiphon_max_subcooled_fraction,
+             "", 0.0, 1.0, lo_closed=False, note="fraction of the tube length")
+    # --- kettle limits
+    _check_kettle_limits(limits)
+
+
+# --- thermosiphon loop ---------------------------------------------------------------
+
+#: Largest loss coefficient sum accepted for one line or singularity (a fully
+#: throttled valve is of the order of 100-1000; beyond that the input is a mistake).
+MAX_LOSS_K = 1000.0
+
+
+def check_thermosiphon(loop) -> None:
+    """Heights, line geometry, loss coefficients and nozzles of a ``ThermosiphonLoop``."""
+    _positive("liquid_level", loop.liquid_level, "m")
+    _positive("inlet_line_diameter", loop.inlet_line_diameter, "m")
+    _non_negative("inlet_line_length", loop.inlet_line_length, "m")
+    _positive("return_line_diameter", loop.return_line_diameter, "m")
+    _non_negative("return_line_length", loop.return_line_length, "m")
+    rise = _non_negative("return_line_rise", loop.return_line_rise, "m")
+    if rise > loop.return_line_length:
+        _fail("return_line_rise", rise, "m",
+              f"must be <= return_line_length ({loop.return_line_length:g} m): the rise is part "
+              "of the line's developed length")
+    for name in ("inlet_line_k", "bottom_channel_k", "tube_entrance_k", "tube_exit_k",
+                 "return_line_k"):
+        _between(name, getattr(loop, name), "", 0.0, MAX_LOSS_K,
+                 note="sum of loss coefficients on a velocity head")
+    _optional(_positive, "inlet_nozzle_diameter", loop.inlet_nozzle_diameter, "m")
+    _optional(_positive, "outlet_nozzle_diameter", loop.outlet_nozzle_diameter, "m")
+    _between("line_roughness", loop.line_roughness, "m", 0.0, 0.01)
+
+
+def _check_thermosiphon_case(case) -> None:
+    """The rules that join a thermosiphon loop to its tubes and streams.
+
+    A thermosiphon case without loop data still loads (schema-1 files have such
+    cases); rating it fails with a message asking for the loop.
+    """
+    from .case import ThermosiphonLoop
+
+    loop = case.thermosiphon
+    if loop is None:
+        return
+    if not isinstance(loop, ThermosiphonLoop):
+        _fail("thermosiphon", loop, "", "must be a ThermosiphonLoop")
+    if case.tubes.orientation != "vertical":
+        _fail("tubes.orientation", case.tubes.orientation, "",
+              "a vertical thermosiphon needs vertical tubes")
+    if case.tubes.passes != 1:
+        _fail("tubes.passes", case.tubes.passes, "",
+              "a vertical thermosiphon has one tube pass (boiling up-flow)")
+    if case.boiling.inlet_quality:
+        _fail("boiling.inlet_quality", case.boiling.inlet_quality, "",
+              "a thermosiphon is fed with column-base liquid: give boiling.inlet_temperature "
+              "for a subcooled column liquid, or neither for saturated liquid")
+    L = case.tubes.length
+    if loop.liquid_level > 2.0 * L:
+        _fail("thermosiphon.liquid_level", loop.liquid_level, "m",
+              f"must be <= 2 x the tube length ({2.0 * L:g} m) above the bottom tube sheet; "
+              "usual levels are between mid-height and the top tube sheet (check the datum)")
+
+
+# --- kettle shell --------------------------------------------------------------------
+
+#: Passes for which the tube count can be estimated from the bundle diameter
+#: (Phadke 1984, as implemented by ht.hx.Ntubes_Phadkeb).
+KETTLE_COUNT_PASSES = (1, 2, 4, 6, 8)
+#: Palen's bundle boiling factor F_b: 1 is a single tube; published values are about 1.5.
+KETTLE_BUNDLE_FACTOR = (1.0, 3.0)
+#: Boiling range accepted for the mixture correction [K]: beyond ~100 K a kettle is the
+#: wrong exchanger (TRADE-PRACTICE 1.6) and the empirical factors are far outside their data.
+KETTLE_MAX_BOILING_RANGE = 200.0
+#: Inputs a mixture method may take in a kettle rating (the pool's state and flux).
+KETTLE_MIXTURE_INPUTS = frozenset({"q", "htc_ideal", "boiling_range", "rho_l", "h_lv"})
+
+
+def _registered(name: str, value, family: str, allowed_inputs=None) -> str:
+    """The name of a registered method of ``family`` (whose inputs a kettle can supply)."""
+    from .correlations import registry
+
+    method = registry.REGISTRY.get(value) if isinstance(value, str) else None
+    usable = [m.name for m in registry.methods(family)
+              if allowed_inputs is None or set(m.inputs) <= allowed_inputs]
+    if method is None or method.name not in usable:
+        _fail(name, value, "", f"must be one of the {family} methods a kettle can use: "
+              + ", ".join(usable))
+    return value
+
+
+def check_kettle(kettle) -> None:
+    """Diameters, weir, nozzles and bundle-boiling options of a ``KettleShell``."""
+    from .case import KETTLE_TUBE_FORMS
+
+    d_k = _positive("kettle_diameter", kettle.kettle_diameter, "m")
+    d_p = _positive("port_diameter", kettle.port_diameter, "m")
+    d_b = _positive("bundle_diameter", kettle.bundle_diameter, "m")
+    if d_p > d_k:
+        _fail("port_diameter", d_p, "m", f"must be <= kettle_diameter ({d_k:g} m): the port "
+              "shell opens into the larger kettle shell")
+    if d_b >= d_p:
+        _fail("bundle_diameter", d_b, "m", f"must be < port_diameter ({d_p:g} m): the bundle "
+              "must fit the port shell")
+    weir = _positive("weir_height", kettle.weir_height, "m")
+    if weir >= d_k:
+        _fail("weir_height", weir, "m", f"must be < kettle_diameter ({d_k:g} m), leaving a "
+              "vapour space above the liquid")
+    if weir <= kettle.bundle_bottom:
+        _fail("weir_height", weir, "m", f"must be above the bottom of the bundle "
+              f"({kettle.bundle_bottom:.4g} m = (port_diameter - bundle_diameter)/2): at this "
+              "level no tube is submerged")
+    _choice("tube_form", kettle.tube_form, KETTLE_TUBE_FORMS)
+    if not isinstance(kettle.estimate_tube_count, bool):
+        _fail("estimate_tube_count", kettle.estimate_tube_count, "", "must be true or false")
+    for name in ("vapour_nozzle_diameter", "liquid_inlet_nozzle_diameter",
+                 "liquid_outlet_nozzle_diameter"):
+        d = _optional(_positive, name, getattr(kettle, name), "m")
+        if d is not None and d >= d_k:
+            _fail(name, d, "m", f"must be < kettle_diameter ({d_k:g} m)")
+    _whole("vapour_nozzles", kettle.vapour_nozzles, 1, 20)
+    _between("bundle_boiling_factor", kettle.bundle_boiling_factor, "", *KETTLE_BUNDLE_FACTOR,
+             note="Palen's factor on the nucleate coefficient; 1.5 is the usual value")
+    _between("boiling_range", kettle.boiling_range, "K", 0.0, KETTLE_MAX_BOILING_RANGE,
+             note="dew minus bubble point of the pool liquid; 0 for a pure fluid")
+    _registered("mixture_method", kettle.mixture_method, "mixture", KETTLE_MIXTURE_INPUTS)
+    _registered("bundle_max_flux", kettle.bundle_max_flux, "bundle_chf")
+    _optional(_positive, "heating_htc", kettle.heating_htc, "W/m^2/K")
+
+
+def _check_kettle_limits(limits) -> None:
+    _positive("kettle_bundle_flux_ratio", limits.kettle_bundle_flux_ratio, "")
+    _between("kettle_min_bundle_factor", limits.kettle_min_bundle_factor, "", 0.0, 1.0,
+             note="Palen's bundle geometry factor Phi_b, at most 1")
+    _positive("kettle_surface_velocity_constant", limits.kettle_surface_velocity_constant, "m/s")
+    _non_negative("kettle_min_freeboard", limits.kettle_min_freeboard, "m")
+    _number("kettle_min_level_over_bundle", limits.kettle_min_level_over_bundle, "m")
+    _positive("kettle_vapour_nozzle_rho_v2", limits.kettle_vapour_nozzle_rho_v2, "kg/m/s^2")
+    _positive("kettle_inlet_nozzle_rho_v2", limits.kettle_inlet_nozzle_rho_v2, "kg/m/s^2")
+
+
+def _check_kettle_case(case) -> None:
+    """The rules that join a kettle shell to its tubes and streams."""
+    from .case import KettleShell
+
+    kettle, tubes = case.kettle, case.tubes
+    if kettle is None:
+        _fail("kettle", None, "", "required when type = 'kettle' (a KettleShell: kettle, port "
+              "and bundle diameters and the weir height)")
+    if not isinstance(kettle, KettleShell):
+        _fail("kettle", kettle, "", "must be a KettleShell")
+    if case.shell is not None:
+        _fail("shell", case.shell, "", "must be None for a kettle: the heating medium is inside "
+              "the tubes and the kettle shell is given by kettle")
+    if tubes.orientation != "horizontal":
+        _fail("tubes.orientation", tubes.orientation, "", "a kettle has a horizontal bundle")
+    pitch = tubes.pitch if tubes.pitch is not None else 1.25 * tubes.outer_diameter
+    if kettle.bundle_diameter < tubes.outer_diameter + pitch:
+        _fail("kettle.bundle_diameter", kettle.bundle_diameter, "m",
+              f"must be at least one tube and one pitch ({tubes.outer_diameter + pitch:.4g} m)")
+    if kettle.tube_form == "u-tube":
+        if tubes.passes % 2:
+            _fail("tubes.passes", tubes.passes, "", "must be even for U-tubes (each U-tube "
+                  "makes two passes)")
+        if tubes.count % 2 and not kettle.estimate_tube_count:
+            _fail("tubes.count", tubes.count, "", "must be even for U-tubes: count is the "
+                  "number of tube ends in the tubesheet, two per U-tube")
+    if kettle.estimate_tube_count and tubes.passes not in KETTLE_COUNT_PASSES:
+        _fail("tubes.passes", tubes.passes, "", "the tube count can be estimated for "
+              + ", ".join(map(str, KETTLE_COUNT_PASSES)) + " passes only; give the count")
 
 
 # --- the case ----------------------------------------------------------------------
@@ -278,7 +469,16 @@ def check_case(case) -> None:
         _fail("required_duty", None, "", "a duty check needs required_duty > 0 W")
     _optional(_positive, "required_duty", case.required_duty, "W")
     _optional(_whole, "increments", case.increments, *INCREMENTS)
-    if case.heating.kind == "liquid" and case.shell is None:
+    if case.type != "thermosiphon" and case.boiling.mass_flow is None:
+        _fail("boiling.mass_flow", None, "", f"required for type {case.type!r} [kg/s] "
+              "(only a thermosiphon finds its own flow)")
+    if case.type == "thermosiphon":
+        _check_thermosiphon_case(case)
+    if case.type == "kettle":
+        _check_kettle_case(case)
+    elif case.kettle is not None:
+        _fail("kettle", case.kettle, "", "only for type = 'kettle'")
+    if case.heating.kind == "liquid" and case.shell is None and case.type != "kettle":
         _fail("shell", None, "", "required when heating.kind = 'liquid' "
               "(the shell-side coefficient needs the shell and its baffles)")
     _check_temperatures(case)

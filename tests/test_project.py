@@ -13,7 +13,7 @@ from hypothesis import given, settings, strategies as st
 
 import rating.project as project_module
 from rating.case import (
-    BWG_THICKNESS, BoilingStream, Case, HeatingMedium, Project, Shell, Tubes,
+    BWG_THICKNESS, BoilingStream, Case, HeatingMedium, KettleShell, Project, Shell, Tubes,
 )
 from rating.correlations.registry import REGISTRY, Method
 from rating.errors import InputError, ProjectFileError
@@ -46,7 +46,8 @@ def make_project():
         boiling=BoilingStream("R134a", 1.5, 414607.5, inlet_quality=0.2),
         heating=HeatingMedium(kind="liquid", fluid="Water", pressure=3e5, inlet_temperature=285.15 + 10,
                               mass_flow=8.0, flow_arrangement="co"),
-        shell=Shell(0.5, 0.25, baffle_cut=0.3), question="duty_check", required_duty=2.5e5)
+        kettle=KettleShell(0.5, 0.3, 0.25, 0.3, boiling_range=2.0), question="duty_check",
+        required_duty=2.5e5)
     return Project(cases=(water, r134a), title="Tést ünïcode", notes="line one\nline two", revision=2)
 
 

@@ -1,0 +1,97 @@
+"""Benchmark: one kettle rating (not a timed test).
+
+Rates each case of the kettle sample (samples/harrow-creek-kettles.ebullio) repeatedly
+with the default increments and prints the median and the fastest wall time, the
+number of tube-side marches a rating took and the share of the time spent in property
+calls (rating.properties, CoolProp; cProfile on one extra rating). Every timed rating
+starts with cold property caches. Target (issue 5, on a 2-core machine): a kettle
+performance rating under 100 ms median. A duty check scales the tube length with a
+root search (a dozen marches) and is shown for information.
+
+    python benchmarks/bench_kettle.py [--repeat N] [FILE ...]
+"""
+from __future__ import annotations
+
+import argparse
+import cProfile
+import pstats
+import statistics
+import sys
+import time
+from pathlib import Path
+
+ROOT = Path(__file__).resolve().parent.parent
+sys.path.insert(0, str(ROOT))
+
+import rating  # noqa: E402
+from rating.exchangers import kettle_march  # noqa: E402
+from rating.properties import Fluid, make_fluid  # noqa: E402
+
+TARGET_MS = 100.0
+
+
+def _fluids(case):
+    """The saturating fluids of a case, whose caches a cold rating empties."""
+    specs = (case.boiling.fluid, case.heating.fluid)
+    return [f for f in (make_fluid(s) for s in specs if isinstance(s, str)) if isinstance(f, Fluid)]
+
+
+def property_share(case) -> float:
+    """Share of one rating's time in property calls (rating.properties, CoolProp)."""
+    prof = cProfile.Profile()
+    prof.enable()
+    rating.rate(case)
+    prof.disable()
+    stats = pstats.Stats(prof).stats
+    total = sum(v[2] for v in stats.values())
+    props = sum(v[2] for k, v in stats.items()
+                if "properties.py" in k[0] or "CoolProp" in k[0]
+                or (k[0] == "~" and "AbstractState" in k[2]))
+    return props / total if total else 0.0
+
+
+def marches(case) -> int:
+    """Tube-side marches in one rating of the case."""
+    count = [0]
+    run = kettle_march.KettleMarch.run
+
+    def counting(self, h0):
+        count[0] += 1
+        return run(self, h0)
+
+    kettle_march.KettleMarch.run = counting
+    try:
+        rating.rate(case)
+    finally:
+        kettle_march.KettleMarch.run = run
+    return count[0]
+
+
+def main(argv=None):
+    p = argparse.ArgumentParser(description=__doc__.splitlines()[0])
+    p.add_argument("files", nargs="*", type=Path)
+    p.add_argument("--repeat", type=int, default=21)
+    args = p.parse_args(argv)
+    files = args.files or [ROOT / "samples" / "harrow-creek-kettles.ebullio"]
+    print(f"{'case':<62} {'question':<12} {'median ms':>10} {'min ms':>8} {'marches':>8} "
+          f"{'property share':>15}")
+    for path in files:
+        for case in rating.load_project(path).cases:
+            if case.type != "kettle":
+                continue
+            rating.rate(case)                         # import and warm the code paths
+            times = []
+            for _ in range(args.repeat):
+                for fl in _fluids(case):
+                    fl.clear_cache()                  # every rating starts cold
+                t0 = time.perf_counter()
+                rating.rate(case)
+                times.append(time.perf_counter() - t0)
+            median = 1e3 * statistics.median(times)
+            flag = "" if case.question != "performance" or median < TARGET_MS else "  (over target)"
+            print(f"{case.name:<62} {case.question:<12} {median:>10.1f} {1e3 * min(times):>8.1f} "
+                  f"{marches(case):>8} {100 * property_share(case):>14.0f}%{flag}")
+
+
+if __name__ == "__main__":
+    main()
