@@ -215,6 +215,7 @@ class Marcher:
         if "D" in self.void.options:
             self.void_options["D"] = tube.D_i
         self.range_notes: dict[str, float] = {}
+        self._range_bounds: set[str] = set()
         self._sat_dicts: dict[float, dict] = {}
         self._q_guess = 0.0
         self.dried_out = False
@@ -236,8 +237,16 @@ class Marcher:
         return sat, x, state.T, (state.rho, state.mu, state.k, state.cp)
 
     def _note_range(self, method, available, z):
+        """Record the first place along the path where a bound of a method is passed.
+
+        One note per method and bound (the message of its first occurrence), so a
+        bound passed along the whole tube is reported once, where it starts.
+        """
         for msg in method.out_of_range(available):
-            self.range_notes.setdefault(msg, z)
+            bound = msg.split(" = ", 1)[0]
+            if bound not in self._range_bounds:
+                self._range_bounds.add(bound)
+                self.range_notes[msg] = z
 
     def _sat_inputs(self, sat) -> dict:
         """The saturation set as a dict for registry dispatch (kept per set)."""

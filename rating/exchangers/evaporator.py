@@ -30,6 +30,9 @@ from .heating import LiquidHeating, SteamHeating, shell_geometry, tube_rows
 #: doubling it moves the duty by well under 0.5 % on the samples (see tests).
 DEFAULT_INCREMENTS = 40
 
+#: Regimes with a wetted wall, where a flux-to-critical-flux ratio means something.
+WETTED = ("subcooled liquid", "subcooled boiling", "saturated boiling")
+
 #: How far past the real tube a duty check may march, in tube lengths.
 DUTY_CHECK_LENGTH_FACTOR = 10.0
 
@@ -322,7 +325,8 @@ def _summary(case, tube, heating, hs_inlet, primary, performance, check) -> dict
         "heating_outlet_temperature_K": heating_out,
         "max_heat_flux_W_m2": max(s.q for s in st),
         # The wetted wall's ratio where dryout began counts: after it the flux collapses.
-        "max_chf_ratio": max(max(s.chf_ratio for s in st), primary.dryout_trigger_ratio),
+        "max_chf_ratio": max([s.chf_ratio for s in st if s.regime in WETTED]
+                             + [primary.dryout_trigger_ratio]),
         "dryout_z_m": primary.dryout_z,
         "exit_pressure_Pa": last.P,
         "steam_flow_kg_s": steam_flow,

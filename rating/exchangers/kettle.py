@@ -6,6 +6,12 @@ the boiling fluid is a pool outside the bundle, held by an overflow weir, whose
 vapour leaves through the vapour space at the given pressure. Geometry and input
 meanings: ``rating.case.KettleShell``.
 
+Tube side: condensing steam takes the larger of Shah's (1979) annular-film
+coefficient and Chato's (1962) stratified one (Nusselt's horizontal-cylinder film
+with C = 0.555 on the inside diameter), then the chosen single-phase method for any
+condensate; a liquid takes the single-phase method (``Methods.single_phase_tube``).
+Steam behind a trap (no steam flow given) is iterated until it leaves as condensate.
+
 Shell side (Palen 1983, Heat Exchanger Design Handbook 3.6; Wolverine Engineering
 Data Book ch. 5 kettle example):
 
@@ -64,6 +70,13 @@ Profiles are along the tube-side path with the evaporator's keys (meanings in
 ``rating.exchangers.kettle_march``: ``quality`` is the pool's mixed outlet quality
 reached with the duty up to z, ``void_fraction`` is not computed), plus
 ``tube_pass`` (1 = the inlet pass) and, for steam, ``heating_quality``.
+
+Not modelled: the froth level and void in the bundle and the circulation they drive
+(beyond F_b), uncovered tubes (rated as if submerged, and warned about), the
+entrainment ratio of Nakajima, Palen & Taborek, heavy-component build-up in the pool,
+the U-bends' area, superheated steam (no desuperheating zone), the fall of the steam
+temperature with its pressure drop (reported and warned about), flow-induced
+vibration.
 """
 from __future__ import annotations
 
@@ -151,7 +164,8 @@ def band_centroids(bundle_diameter, passes) -> list[float]:
     R = 0.5 * bundle_diameter
 
     def area_above(y):        # circular segment above the chord at height y
-        return R * R * math.acos(max(-1.0, min(1.0, y / R))) - y * math.sqrt(max(R * R - y * y, 0.0))
+        c = max(-1.0, min(1.0, y / R))
+        return R * R * (math.acos(c) - c * math.sqrt(1.0 - c * c))
 
     def moment_above(y):      # its first moment about the centre line
         return 2.0 / 3.0 * max(R * R - y * y, 0.0) ** 1.5
@@ -312,7 +326,8 @@ def _setup(case) -> _Kettle:
 def _march(kt: _Kettle, n, *, progress=None, cancel=None) -> KettleMarch:
     t = kt.tubes
     case = kt.case
-    R_wall = t.outer_diameter * math.log(t.outer_diameter / t.inner_diameter) / (2.0 * t.conductivity)
+    R_wall = (t.outer_diameter * math.log(t.outer_diameter / t.inner_diameter)
+              / (2.0 * t.conductivity))
     return KettleMarch(kt.heating, kt.bands, D_o=t.outer_diameter, D_i=t.inner_diameter,
                        R_wall=R_wall, fouling_inner=case.heating.fouling_resistance,
                        fouling_outer=case.boiling.fouling_resistance,
@@ -531,7 +546,7 @@ def _duty_check(case, kt, n, cancel, prog):
         if seen[L_hi][1].stations[-1].duty < Q:
             reached = seen[L_hi][1].stations[-1].duty
             return (kt, MarchOutcome([], "failed", f"the required duty {Q:.4g} W is not reached "
-                                     f"with tubes {DUTY_CHECK_LENGTH_FACTOR:g} times as long "
+                                     f"with tubes {L_hi / L:.3g} times as long "
                                      f"(reached {reached:.4g} W)"), None)
         L_req = brentq(resid, 1e-4 * L, L_hi, xtol=1e-7 * L, rtol=1e-10, maxiter=100)
     except _Failed as exc:
@@ -616,7 +631,7 @@ def _heating_dp(kt, outcome) -> float:
 def _summary(case, primary, performance, check) -> dict:
     kt, outcome, _ = primary
     st = outcome.stations
-    first, last = st[0], st[-1]
+    last = st[-1]
     t = kt.tubes
     duty = last.duty
     per_len = t.tubes_per_pass * math.pi * t.outer_diameter
@@ -740,9 +755,10 @@ def _warnings(case, primary, s) -> list[RatingWarning]:
             break
     if s["liquid_level_over_bundle_m"] < lim.kettle_min_level_over_bundle:
         uncovered = -s["liquid_level_over_bundle_m"]
+        crest = s["liquid_level_over_bundle_m"] + k.bundle_top - k.weir_height
         out.append(RatingWarning(
             "bundle-uncovered", "warning",
-            f"the liquid level ({k.weir_height:g} m weir plus {s['liquid_level_over_bundle_m'] + k.bundle_top - k.weir_height:.3f} m crest) "
+            f"the liquid level ({k.weir_height:g} m weir plus {crest:.3f} m crest) "
             + (f"leaves the top {uncovered:.3f} m of the bundle uncovered"
                if uncovered > 0.0 else
                f"is only {-uncovered:.3f} m over the bundle (limit "
@@ -796,7 +812,8 @@ def _warnings(case, primary, s) -> list[RatingWarning]:
             out.append(RatingWarning(
                 "condensate-flooding", "info",
                 f"the steam is all condensed at z = {flooded[0].z:.3f} m; the last "
-                f"{st[-1].z - flooded[0].z:.3f} m of the path runs full of condensate", flooded[0].z))
+                f"{st[-1].z - flooded[0].z:.3f} m of the path runs full of condensate",
+                flooded[0].z))
         if s["pressure_drop_heating_Pa"] > STEAM_DP_SHARE * case.heating.pressure:
             out.append(RatingWarning(
                 "steam-pressure-drop", "warning",

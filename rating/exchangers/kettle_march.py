@@ -444,8 +444,11 @@ class KettleMarch:
                     self._add(stations, z, h, band, loc, duty, k)
                     if self.progress is not None:
                         self.progress(min(z / total, 1.0))
-        except PropertyError as exc:
-            return self._outcome(stations, h0, h, "failed", f"at z = {z:.3f} m: {exc}")
+        except PropertyError as exc:  # the pool's properties are all taken before the march
+            return self._outcome(stations, h0, h, "failed", (
+                f"the heating medium leaves its property range at z = {z:.3f} m, cooled "
+                f"towards the pool at {min(b.T_sat for b in self.bands):.2f} K (a medium that "
+                f"would freeze there cannot heat this pool): {exc}"))
         except (ValueError, ZeroDivisionError, OverflowError, RuntimeError) as exc:
             return self._outcome(stations, h0, h, "failed", f"no solution at z = {z:.3f} m: {exc}")
         return self._outcome(stations, h0, h)
@@ -478,7 +481,8 @@ class KettleMarch:
             # most a condensate step past it, so that its midpoint is not deep in the
             # condensate (where the flux of the rest of the step would be lost).
             per_x = heating.mass_flow * heating.sat.h_lv / (q * self.per_length)
-            condensate = Marcher._NTU_PER_STEP * heating.mass_flow * heating.sat.cp_l / ua_per_length
+            condensate = (Marcher._NTU_PER_STEP * heating.mass_flow * heating.sat.cp_l
+                          / ua_per_length)
             step = min(_QUALITY_PER_STEP * per_x, heating.quality(h) * per_x + condensate)
         return min(dz, max(step, Marcher._SMALLEST_STEP * dz))
 
