@@ -13,8 +13,8 @@ from __future__ import annotations
 
 __version__ = "0.1.0"
 
-from .case import (BoilingStream, Case, HeatingMedium, Limits, Methods, Project, Shell,  # noqa: F401
-                   Tubes)
+from .case import (BoilingStream, Case, HeatingMedium, KettleShell, Limits, Methods,  # noqa: F401
+                   Project, Shell, ThermosiphonLoop, Tubes)
 from .errors import InputError, ProjectFileError, PropertyError, RatingError  # noqa: F401
 from .results import Result  # noqa: F401
 

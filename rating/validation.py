@@ -317,14 +317,14 @@ def check_thermosiphon(loop) -> None:
 def _check_thermosiphon_case(case) -> None:
     """The rules that join a thermosiphon loop to its tubes and streams.
 
-    A thermosiphon case without loop data still loads (schema-1 files have such
-    cases); rating it fails with a message asking for the loop.
+    A thermosiphon needs its loop data, as a kettle needs its shell data.
     """
     from .case import ThermosiphonLoop
 
     loop = case.thermosiphon
     if loop is None:
-        return
+        _fail("thermosiphon", None, "", "a thermosiphon case needs its loop data (liquid level, "
+              "inlet and return lines)")
     if not isinstance(loop, ThermosiphonLoop):
         _fail("thermosiphon", loop, "", "must be a ThermosiphonLoop")
     if case.tubes.orientation != "vertical":

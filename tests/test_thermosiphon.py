@@ -491,10 +491,10 @@ def test_case_rules_for_a_thermosiphon(stripper, over, field, words):
         assert w in str(err.value)
 
 
-def test_a_thermosiphon_without_loop_data_loads_but_does_not_rate(stripper):
-    bare = dataclasses.replace(stripper, thermosiphon=None)      # as in schema-1 files
-    r = rating.rate(bare)
-    assert r.status == "failed" and "loop data" in r.message
+def test_a_thermosiphon_without_loop_data_is_refused(stripper):
+    with pytest.raises(InputError) as err:
+        dataclasses.replace(stripper, thermosiphon=None)
+    assert err.value.field == "thermosiphon" and "loop data" in str(err.value)
 
 
 def test_the_samples_round_trip_through_the_project_file(tmp_path):

@@ -37,7 +37,7 @@ WETTED = ("subcooled liquid", "subcooled boiling", "saturated boiling")
 DUTY_CHECK_LENGTH_FACTOR = 10.0
 
 
-class _Progress:
+class ProgressShare:
     """Maps the progress of one march onto a share of the whole rating."""
 
     def __init__(self, callback):
@@ -183,7 +183,7 @@ def rate_evaporator(case, *, increments=None, progress=None, cancel=None) -> Res
     path = case.tubes.length * case.tubes.passes
     P0 = case.boiling.inlet_pressure
     h0 = inlet_enthalpy(case, fluid)
-    prog = _Progress(progress)
+    prog = ProgressShare(progress)
     notes: list[str] = []
 
     local_condensation = isinstance(heating, SteamHeating) and tube.vertical \
@@ -225,7 +225,7 @@ def rate_evaporator(case, *, increments=None, progress=None, cancel=None) -> Res
 
     primary = check if (case.question == "duty_check" and check is not None
                         and check.status == "ok") else outcome
-    summary = _summary(case, tube, heating, hs_inlet, primary, outcome, check)
+    summary = march_summary(case, tube, heating, hs_inlet, primary, outcome, check)
     warnings = checks.evaluate(case, primary, fluid=fluid, service="evaporator")
     if check is not None and check.status != "ok":
         warnings.append(RatingWarning("duty-not-reached", "error", check.message, None))
@@ -270,7 +270,7 @@ def _duty_check(case, heating, hs_inlet, march):
     return march(h_out, stop_duty=Q, share=(0.5, 0.5))
 
 
-def _integrate(stations, attr):
+def integrate_along_z(stations, attr):
     """Trapezoidal integral of a station attribute over z."""
     total = 0.0
     for a, b in zip(stations, stations[1:]):
@@ -278,7 +278,7 @@ def _integrate(stations, attr):
     return total
 
 
-def _summary(case, tube, heating, hs_inlet, primary, performance, check) -> dict:
+def march_summary(case, tube, heating, hs_inlet, primary, performance, check) -> dict:
     """Summary of the march that answers the case's question.
 
     For a performance rating that is the full-length march. For a duty check it is
@@ -292,8 +292,8 @@ def _summary(case, tube, heating, hs_inlet, primary, performance, check) -> dict
     per_len_o = tube.tubes_in_parallel * math.pi * tube.D_o
     area = case.tubes.outer_area
     area_marched = per_len_o * last.z
-    ua = per_len_o * _integrate(st, "u_service")
-    ua_clean = per_len_o * _integrate(st, "u_clean")
+    ua = per_len_o * integrate_along_z(st, "u_service")
+    ua_clean = per_len_o * integrate_along_z(st, "u_clean")
     if hs_inlet is None:
         duty_heating = last.duty  # condensate x latent heat = the heat the steam gave up
         heating_out = heating.T

@@ -95,7 +95,7 @@ from ..errors import PropertyError
 from ..march import Cancelled
 from ..properties import make_fluid
 from ..results import MethodUsed, RatingWarning, Result, failed, profiles_from_stations
-from .evaporator import DUTY_CHECK_LENGTH_FACTOR, _integrate, _Progress, inlet_enthalpy
+from .evaporator import DUTY_CHECK_LENGTH_FACTOR, ProgressShare, inlet_enthalpy, integrate_along_z
 from .kettle_march import InTubeHeating, KettleMarch, PoolBand
 
 #: Default increment count along the tube-side path, shared among the passes:
@@ -470,7 +470,7 @@ def methods_used(kt: _Kettle) -> tuple[MethodUsed, ...]:
 def rate_kettle(case, *, increments=None, progress=None, cancel=None) -> Result:
     """Rate a kettle reboiler case; never raises for a physical reason."""
     n = increments or case.increments or DEFAULT_INCREMENTS
-    prog = _Progress(progress)
+    prog = ProgressShare(progress)
     try:
         kt = _setup(case)
     except (ValueError, PropertyError) as exc:
@@ -501,7 +501,7 @@ def rate_kettle(case, *, increments=None, progress=None, cancel=None) -> Result:
     primary = (kt, outcome, march)
     if case.question == "duty_check" and check is not None and check[1].status == "ok":
         primary = check
-    summary = _summary(case, primary, (kt, outcome), check)
+    summary = kettle_summary(case, primary, (kt, outcome), check)
     warnings = _warnings(case, primary, summary)
     if check is not None and check[1].status != "ok":
         warnings.append(RatingWarning("duty-not-reached", "error", check[1].message, None))
@@ -620,7 +620,7 @@ def _nozzles(case, kt, m_vapour, m_liquid):
 
 def _heating_dp(kt, outcome) -> float:
     st = outcome.stations
-    dp = _integrate(st, "dpdz_friction")
+    dp = integrate_along_z(st, "dpdz_friction")
     h = kt.heating
     if not h.condensing:
         rho = h.density(st[0].h)
@@ -628,7 +628,7 @@ def _heating_dp(kt, outcome) -> float:
     return dp
 
 
-def _summary(case, primary, performance, check) -> dict:
+def kettle_summary(case, primary, performance, check) -> dict:
     kt, outcome, _ = primary
     st = outcome.stations
     last = st[-1]
@@ -636,8 +636,8 @@ def _summary(case, primary, performance, check) -> dict:
     duty = last.duty
     per_len = t.tubes_per_pass * math.pi * t.outer_diameter
     area_marched = per_len * last.z
-    ua = per_len * _integrate(st, "u_service")
-    ua_clean = per_len * _integrate(st, "u_clean")
+    ua = per_len * integrate_along_z(st, "u_service")
+    ua_clean = per_len * integrate_along_z(st, "u_clean")
     h = kt.heating
     m_h = h.mass_flow
     duty_heating = m_h * (outcome.start_heating_state - outcome.end_heating_state)

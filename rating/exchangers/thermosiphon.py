@@ -75,7 +75,7 @@ from ..march import Cancelled, Marcher, MarchOutcome, solve_counter_current
 from ..properties import make_fluid
 from ..results import SUMMARY_KEYS, RatingWarning, Result, failed, profiles_from_stations
 from . import piping
-from .evaporator import (DEFAULT_INCREMENTS, _summary, boiling_tube, condensate_film,
+from .evaporator import (DEFAULT_INCREMENTS, march_summary, boiling_tube, condensate_film,
                          heating_side, methods_used)
 from .heating import SteamHeating
 
@@ -474,9 +474,6 @@ def _use_local_condensation(loop, chosen: Crossing) -> None:
 
 def rate_thermosiphon(case, *, increments=None, progress=None, cancel=None) -> Result:
     """Rate a vertical thermosiphon reboiler; never raises for a physical reason."""
-    if case.thermosiphon is None:
-        return failed(case, "a thermosiphon needs its loop data (case.thermosiphon: liquid "
-                      "level, inlet and return lines)")
     n = increments or case.increments or DEFAULT_INCREMENTS
     n_scan = min(SCAN_INCREMENTS, n)
     fluid = make_fluid(case.boiling.fluid)
@@ -526,7 +523,7 @@ def rate_thermosiphon(case, *, increments=None, progress=None, cancel=None) -> R
     sized = dataclasses.replace(case, boiling=dataclasses.replace(case.boiling, mass_flow=W),
                                 required_duty=None, question="performance")
     tube_w = dataclasses.replace(tube, mass_flow_per_tube=W / loop.N)
-    summary = _summary(sized, tube_w, heating, hs_inlet, outcome, outcome, None)
+    summary = march_summary(sized, tube_w, heating, hs_inlet, outcome, outcome, None)
     summary.update(_loop_summary(case, loop, point))
     summary["balances_found"] = len(crossings)     # stable or not, wet or dry
     if case.required_duty:
