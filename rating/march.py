@@ -715,8 +715,9 @@ def solve_counter_current(march, h_low, h_inlet) -> MarchOutcome:
     seen: dict[float, MarchOutcome] = {}
 
     def resid(h_start):
-        out = march(h_start)
-        seen[h_start] = out
+        out = seen.get(h_start)
+        if out is None:  # the root finder asks again for the ends of its bracket
+            out = seen[h_start] = march(h_start)
         if out.status != "ok":
             raise _MarchFailed(out)
         return out.end_heating_state - h_inlet
