@@ -652,13 +652,17 @@ class Marcher:
 
         if f(step) <= 0.0:  # the event sits at the very end of the increment
             return (step,) + cache[step]
-        lo, hi = 0.0, step
-        if f(lo) < 0.0:
-            lo = brentq(f, 0.0, step, xtol=1e-9 * step, rtol=1e-12, maxiter=100)
+        length = 0.0
+        if f(0.0) < 0.0:
+            length = brentq(f, 0.0, step, xtol=1e-9 * step, rtol=1e-12, maxiter=100)
         # End on the event's side of the root, so the event has happened at the station.
-        length = lo
-        while f(length) < 0.0 and length < step:
-            length = min(step, length + 1e-9 * step)
+        nudge = 1e-9 * step
+        for _ in range(40):
+            if f(length) >= 0.0:
+                break
+            length, nudge = min(step, length + nudge), 2.0 * nudge
+        else:
+            length = step  # f(step) > 0 is known
         return (length,) + cache[length]
 
     def _note_ranges_at(self, z, local: _Local):

@@ -14,7 +14,7 @@ import ht
 import pytest
 from CoolProp.CoolProp import PropsSI
 
-from property_sets import BASE, P3, R10, SETS, W1
+from property_sets import BASE, R10, SETS, W1
 from rating.correlations import flow_boiling as fb
 from rating.correlations.pool_boiling import forster_zuber_1955
 from rating.correlations.registry import get, methods

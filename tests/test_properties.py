@@ -20,7 +20,7 @@ from property_sets import P3, W1  # CHECK-VALUES section 0, 7 s.f. [computed]
 from rating import properties
 from rating.errors import (InputError, OutOfRangeError, PropertyError, SupercriticalError,
                            UnknownFluidError)
-from rating.properties import (Fluid, IncompressibleLiquid, SaturationSet, TableLiquid,
+from rating.properties import (Fluid, IncompressibleLiquid, TableLiquid,
                                fluid_names, make_fluid)
 
 
