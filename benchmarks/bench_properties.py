@@ -4,7 +4,7 @@ Each figure is the median over repeats of the mean time per call of a loop of
 many calls (time.perf_counter). Targets: a new saturation set < 30 us, a cached
 one < 2 us.
 
-    /work/venv/bin/python benchmarks/bench_properties.py [--quick] [--tabular]
+    python benchmarks/bench_properties.py [--quick] [--tabular]
 
 --tabular also times a raw CoolProp BICUBIC&HEOS saturation set for water, for
 comparison only (the property layer uses HEOS). Its tables are built in a
