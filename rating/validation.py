@@ -352,7 +352,8 @@ KETTLE_COUNT_PASSES = (1, 2, 4, 6, 8)
 #: Palen's bundle boiling factor F_b: 1 is a single tube; published values are about 1.5.
 KETTLE_BUNDLE_FACTOR = (1.0, 3.0)
 #: Boiling range accepted for the mixture correction [K]: beyond ~100 K a kettle is the
-#: wrong exchanger (TRADE-PRACTICE 1.6) and the empirical factors are far outside their data.
+#: wrong exchanger (Perry's Handbook, sec. 11, thermal design of reboilers) and the empirical
+#: factors are far outside their data.
 KETTLE_MAX_BOILING_RANGE = 200.0
 #: Inputs a mixture method may take in a kettle rating (the pool's state and flux).
 KETTLE_MIXTURE_INPUTS = frozenset({"q", "htc_ideal", "boiling_range", "rho_l", "h_lv"})

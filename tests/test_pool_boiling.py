@@ -406,7 +406,7 @@ def test_palen_bundle_geometry_factor_is_capped_and_flagged():
     assert capped / pb.mostinski_chf(s["P"], s["P_crit"]) == pytest.approx(
         803 * BTU_FT2 / PSI * 1000 / 367.0, rel=1e-9)
     assert capped / pb.mostinski_chf(s["P"], s["P_crit"]) == pytest.approx(1.0011, abs=1e-4)
-    # Phi_b < 0.1: vapour lanes or a wider pitch needed (TRADE-PRACTICE 2.1)
+    # Phi_b < 0.1: vapour lanes or a wider pitch needed (Wolverine Engineering Data Book, ch. 5)
     dense = dict(P=s["P"], P_crit=s["P_crit"], bundle_diameter=1.0, tube_length=1.0, area=100.0)
     msgs = get("palen_1983").out_of_range(dense)
     assert len(msgs) == 1 and "Phi_b" in msgs[0]
