@@ -654,9 +654,9 @@ class Marcher:
             return (step,) + cache[step]
         length = 0.0
         if f(0.0) < 0.0:
-            length = brentq(f, 0.0, step, xtol=1e-9 * step, rtol=1e-12, maxiter=100)
+            length = brentq(f, 0.0, step, xtol=1e-7 * step, rtol=1e-10, maxiter=100)
         # End on the event's side of the root, so the event has happened at the station.
-        nudge = 1e-9 * step
+        nudge = 2e-7 * step  # twice the root tolerance
         for _ in range(40):
             if f(length) >= 0.0:
                 break
