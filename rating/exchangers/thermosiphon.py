@@ -624,6 +624,17 @@ def _will_not_circulate(case, loop, scan, crossings, curve, methods, n) -> Resul
         message = ("will not circulate: at every flow that leaves liquid in the tubes the loop "
                    "uses up its pressure (two-phase friction and acceleration in the tubes); "
                    "wider or more tubes, a lower duty or a higher liquid level are needed")
+    elif max(p.residual for p in wet) >= 0.0:
+        # The head would do somewhere, yet no balance there is both wet and stable.
+        surplus = max(wet, key=lambda p: p.residual)
+        notes = sorted({p.note for p in scan if not p.parts and p.note})
+        message = (f"will not circulate steadily: at {surplus.W:.3g} kg/s the liquid head "
+                   f"exceeds the loop's losses by {surplus.residual:.4g} Pa, but no wet, "
+                   "statically stable balance was found"
+                   + ("; the balances found are listed in the other warnings" if crossings
+                      else "")
+                   + (f"; trial flows that could not be rated: {'; '.join(notes)}"
+                      if notes else ""))
     else:
         best = max(wet, key=lambda p: p.residual)
         deficit = -best.residual
