@@ -245,3 +245,14 @@ def test_steam_film_follows_the_local_condensate_film():
     dT_mean = sum(0.5 * (a + b) * (z2 - z1) for a, b, z1, z2 in zip(dT, dT[1:], z, z[1:])) / z[-1]
     effective = r.summary["duty_W"] / (case.tubes.outer_area * dT_mean)
     assert effective == pytest.approx(mean, rel=0.05)
+
+
+def test_rating_in_worker_threads_gives_the_same_results(rated):
+    # Cases are immutable and each thread gets its own property objects, so ratings in
+    # an executor (the GUI's worker, a batch run) equal the ones made here.
+    from concurrent.futures import ThreadPoolExecutor
+    cases = [c for c, _ in rated.values()]
+    with ThreadPoolExecutor(max_workers=2) as pool:
+        results = list(pool.map(rating.rate, cases))
+    for case, r in zip(cases, results):
+        assert r.summary == rated[case.name][1].summary, case.name
