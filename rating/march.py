@@ -714,22 +714,38 @@ def solve_counter_current(march, h_low, h_inlet) -> MarchOutcome:
     medium arrives at z = L with its given inlet enthalpy ``h_inlet``. The root is
     bracketed between ``h_low`` (the medium cooled to the boiling inlet
     temperature) and ``h_inlet`` (no heat given up), where the residual changes sign.
+    It is converged on the residual itself, to a millionth of the duty per unit
+    heating flow: with a small heating flow against a large area the residual
+    changes steeply with the start, and a tolerance on the start would not do.
     """
     span = abs(h_inlet - h_low)
     seen: dict[float, MarchOutcome] = {}
+    scale = {"r": span}
+
+    class _Converged(Exception):
+        pass
 
     def resid(h_start):
         out = seen.get(h_start)
         if out is None:  # the root finder asks again for the ends of its bracket
             out = seen[h_start] = march(h_start)
         if out.status != "ok":
+            # The medium only gains enthalpy along +z: a trial that failed (left the
+            # medium's data, say) after passing its inlet state has a positive residual.
+            end = out.end_heating_state
+            if end is not None and end > h_inlet:
+                return end - h_inlet
             raise _MarchFailed(out)
-        return out.end_heating_state - h_inlet
+        r = out.end_heating_state - h_inlet
+        if abs(r) <= 1e-6 * scale["r"]:
+            raise _Converged(h_start)
+        return r
 
     try:
         r_in = resid(h_inlet)
         if r_in <= 0.0:  # nothing transferred: the inlet state is the answer
             return seen[h_inlet]
+        scale["r"] = r_in      # about the duty per unit heating flow
         # With the medium leaving at its inlet state the duty is too large; leaving
         # colder by that duty, it is too small (the medium is colder everywhere): a
         # narrow bracket from two marches, and the full one only if that fails.
@@ -742,7 +758,12 @@ def solve_counter_current(march, h_low, h_inlet) -> MarchOutcome:
                                "cooled to the boiling inlet temperature")
                 return out
             lo = h_low
-        h_start = brentq(resid, lo, h_inlet, xtol=2e-6 * span, rtol=1e-12, maxiter=100)
+        h_start = brentq(resid, lo, h_inlet, xtol=1e-12 * span, rtol=1e-15, maxiter=200)
+    except _Converged as done:
+        h_start = done.args[0]
     except _MarchFailed as exc:
         return exc.outcome
-    return seen.get(h_start) or march(h_start)
+    out = seen.get(h_start) or march(h_start)
+    if out.status != "ok":  # the root sits where the medium leaves its data
+        out.message = "no counter-current solution within the heating medium's data: " + out.message
+    return out

@@ -521,6 +521,11 @@ def _check_temperatures(case) -> None:
         _fail("boiling.inlet_pressure", P, "Pa",
               f"no boiling above the critical pressure (P_crit = {fluid.P_crit:.6g} Pa)")
     T_sat = _t_sat(fluid, P, "boiling.inlet_pressure")
+    try:  # the march needs the saturated transport properties, which some fluids lack
+        fluid.saturation(P)
+    except PropertyError as exc:
+        _fail("boiling.fluid", boiling.fluid, "", f"{exc}; a rating needs the liquid and "
+              "vapour viscosity, conductivity and surface tension: choose a fluid that has them")
     at = f"{T_sat:.5g} K at {P:.6g} Pa"
     if boiling.inlet_temperature is not None and boiling.inlet_temperature >= T_sat:
         _fail("boiling.inlet_temperature", boiling.inlet_temperature, "K",
@@ -538,8 +543,12 @@ def _check_temperatures(case) -> None:
                   f"must be hotter than the boiling point {at}; steam at this pressure"
                   f" condenses at {T_hot:.5g} K")
     else:
-        if isinstance(heating.fluid, str):
-            _fluid("heating.fluid", heating.fluid)
+        medium = _fluid("heating.fluid", heating.fluid if isinstance(heating.fluid, str) else
+                        {"name": "user table", "table": heating.fluid})
+        try:
+            medium.single_phase(heating.pressure, heating.inlet_temperature)
+        except PropertyError as exc:
+            _fail("heating.inlet_temperature", heating.inlet_temperature, "K", str(exc))
         if heating.inlet_temperature <= T_sat:
             _fail("heating.inlet_temperature", heating.inlet_temperature, "K",
                   f"must be hotter than the boiling point {at}")

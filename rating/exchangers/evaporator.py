@@ -143,7 +143,8 @@ def heating_side(case):
     T_cold = case.boiling.inlet_temperature or boiling.saturation(case.boiling.inlet_pressure).T_sat
     span = hm.inlet_temperature - T_cold
     T_range = (max(T_cold - 5.0, getattr(fluid, "T_min", T_cold - 5.0)),
-               hm.inlet_temperature + max(1.0, span))
+               min(hm.inlet_temperature + max(1.0, span),
+                   getattr(fluid, "T_max", math.inf)))
     side = LiquidHeating(fluid, hm.pressure, hm.mass_flow,
                          counter_current=hm.flow_arrangement == "counter",
                          shell_geometry=shell_geometry(case), method=case.methods.shell_side,
@@ -245,6 +246,8 @@ def _shoot_counter_current(case, fluid, heating, hs_inlet, march, P0):
     """Counter-current liquid: shoot on its outlet enthalpy at the boiling inlet."""
     T_cold = fluid.saturation(P0).T_sat if case.boiling.inlet_temperature is None \
         else case.boiling.inlet_temperature
+    # The medium cannot leave colder than its own data reach (a table oil, a freezing brine).
+    T_cold = max(T_cold, getattr(heating.fluid, "T_min", T_cold))
     h_low = heating.fluid.enthalpy(case.heating.pressure, T_cold)
     calls = [0]
 
