@@ -335,3 +335,14 @@ def test_property_failures_are_reported_on_the_field():
     # water's triple point is 611.655 Pa (IAPWS-95): no saturation below it
     error = refused(Case, case_kwargs(boiling=BoilingStream(**{**BOILING, "inlet_pressure": 100.0})))
     assert_refused(error, "boiling.inlet_pressure", "100 Pa", "611.655")
+
+
+def test_a_boiling_fluid_without_transport_properties_is_refused():
+    # CoolProp 8 has no thermal conductivity model for cyclohexane (common knowledge of
+    # its fluid library, checked here by the refusal's own message): the rating needs it.
+    with pytest.raises(InputError) as err:
+        Case(name="no transport", tubes=Tubes(count=10, length=2.0, outer_diameter=0.0254, bwg=14),
+             boiling=BoilingStream(fluid="Cyclohexane", mass_flow=1.0, inlet_pressure=4e5),
+             heating=HeatingMedium(kind="steam", pressure=10e5))
+    assert err.value.field == "boiling.fluid"
+    assert "conductivity" in str(err.value) and "choose a fluid" in str(err.value)
