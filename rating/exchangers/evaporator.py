@@ -198,7 +198,7 @@ def rate_evaporator(case, *, increments=None, progress=None, cancel=None) -> Res
         # Vertical tubes on steam: a first march with Nusselt's mean coefficient gives
         # the condensate film along the tube; the second uses the local film law.
         half = (share[0], 0.5 * share[1])
-        heating._profile = None
+        heating.use_mean_coefficient()
         first = Marcher(tube, heating, path, n, progress=prog.part(*half), cancel=cancel).run(
             P0, h0, hs_start, stop_duty=stop_duty, max_length=max_len)
         if first.status != "ok":

@@ -57,6 +57,10 @@ class SteamHeating(HeatingSide):
                               s.cp_l) for g in film_flow]
         self._profile = (list(z), htc)
 
+    def use_mean_coefficient(self):
+        """Back to Nusselt's mean coefficient (no condensate profile known yet)."""
+        self._profile = None
+
     def _local_htc(self, z):
         zs, htc = self._profile
         if z <= zs[0]:
