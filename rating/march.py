@@ -285,9 +285,16 @@ class Marcher:
             xx = min(max(x, 1e-4), 0.9999)
             avail = dict(self._sat_inputs(sat), G=G, x=xx, D=t.D_i, **self.fb_inputs)
             name, opts, dp_sat = self.fb.name, self.fb_options, sat.dp_sat
+            if "q" in self.fb.inputs:
+                # Heat-flux form: bind the fixed arguments once, outside the root on q.
+                fn = self.fb.function
+                args = {n: avail[n] for n in self.fb.inputs if n != "q"}
 
-            def htc_at(q):
-                return flow_boiling_htc(name, avail, q, dp_sat, **opts)
+                def htc_at(q):
+                    return fn(q=q, **args, **opts)
+            else:
+                def htc_at(q):
+                    return flow_boiling_htc(name, avail, q, dp_sat, **opts)
 
             def T_s(q):
                 return sat.T_sat if q <= 0.0 else sat.T_sat + q / htc_at(q)
