@@ -599,11 +599,11 @@ def _surface(case, kt, m_vapour, m_liquid):
 
 def _nozzles(case, kt, m_vapour, m_liquid):
     k, sat, b = case.kettle, kt.sat_v, case.boiling
-    out = {"vapour_outlet_rho_v2_Pa": None, "liquid_inlet_rho_v2_Pa": None,
+    out = {"vapour_outlet_rho_v2_kg_m_s2": None, "liquid_inlet_rho_v2_kg_m_s2": None,
            "liquid_outlet_velocity_m_s": None}
     if k.vapour_nozzle_diameter is not None:
         G = m_vapour / (k.vapour_nozzles * math.pi * k.vapour_nozzle_diameter ** 2 / 4.0)
-        out["vapour_outlet_rho_v2_Pa"] = G * G / sat.rho_v
+        out["vapour_outlet_rho_v2_kg_m_s2"] = G * G / sat.rho_v
     if k.liquid_inlet_nozzle_diameter is not None:
         if b.inlet_temperature is not None:
             rho = kt.fluid.single_phase(b.inlet_pressure, b.inlet_temperature).rho
@@ -611,7 +611,7 @@ def _nozzles(case, kt, m_vapour, m_liquid):
             x = b.inlet_quality or 0.0
             rho = 1.0 / (x / sat.rho_v + (1.0 - x) / sat.rho_l)
         G = b.mass_flow / (math.pi * k.liquid_inlet_nozzle_diameter ** 2 / 4.0)
-        out["liquid_inlet_rho_v2_Pa"] = G * G / rho
+        out["liquid_inlet_rho_v2_kg_m_s2"] = G * G / rho
     if k.liquid_outlet_nozzle_diameter is not None:
         out["liquid_outlet_velocity_m_s"] = m_liquid / (
             sat.rho_l * math.pi * k.liquid_outlet_nozzle_diameter ** 2 / 4.0)
@@ -778,13 +778,13 @@ def _warnings(case, primary, s) -> list[RatingWarning]:
             "entrainment", "warning",
             f"{what}: liquid carry-over; a kettle shell of at least "
             f"{s['min_kettle_diameter_m']:.3g} m would meet {u_max:.3g} m/s", None))
-    rv2 = s["vapour_outlet_rho_v2_Pa"]
+    rv2 = s["vapour_outlet_rho_v2_kg_m_s2"]
     if rv2 is not None and rv2 > lim.kettle_vapour_nozzle_rho_v2:
         out.append(RatingWarning(
             "nozzle-rho-v2", "warning",
             f"rho v^2 at the vapour outlet {rv2:.4g} kg/m/s^2 exceeds "
             f"{lim.kettle_vapour_nozzle_rho_v2:.4g}: a larger or a second vapour nozzle", None))
-    rv2 = s["liquid_inlet_rho_v2_Pa"]
+    rv2 = s["liquid_inlet_rho_v2_kg_m_s2"]
     if rv2 is not None and rv2 > lim.kettle_inlet_nozzle_rho_v2:
         out.append(RatingWarning(
             "impingement", "warning",

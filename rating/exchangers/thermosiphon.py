@@ -581,8 +581,8 @@ def _loop_summary(case, loop: _Loop, point: LoopPoint) -> dict:
         "return_line_pressure_drop_Pa": point.parts["return_line"],
         "inlet_saturation_rise_K": st[0].T_sat - loop.T_sat_col,
         "mean_heat_flux_W_m2": duty / area,
-        "inlet_nozzle_rho_v2_Pa": piping.rho_v2(W, lp.inlet_nozzle, loop.rho_in),
-        "outlet_nozzle_rho_v2_Pa": piping.rho_v2(W, lp.outlet_nozzle, point.extra["rho_exit"]),
+        "inlet_nozzle_rho_v2_kg_m_s2": piping.rho_v2(W, lp.inlet_nozzle, loop.rho_in),
+        "outlet_nozzle_rho_v2_kg_m_s2": piping.rho_v2(W, lp.outlet_nozzle, point.extra["rho_exit"]),
         "balances_found": None,
     }
 
@@ -773,7 +773,7 @@ def _loop_warnings(case, fluid, loop, chosen, crossings, scan, summary) -> list[
             f"mean heat flux {q_mean:.4g} W/m^2 is above {q_max:.4g} W/m^2{source}"))
 
     # Nozzle momentum flux (TEMA, tube-side nozzles).
-    for key, name in (("inlet_nozzle_rho_v2_Pa", "inlet"), ("outlet_nozzle_rho_v2_Pa", "outlet")):
+    for key, name in (("inlet_nozzle_rho_v2_kg_m_s2", "inlet"), ("outlet_nozzle_rho_v2_kg_m_s2", "outlet")):
         if summary[key] > lim.thermosiphon_nozzle_rho_v2:
             out.append(RatingWarning(
                 "nozzle-rho-v2", "warning",
