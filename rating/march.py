@@ -217,6 +217,8 @@ class Marcher:
         self.range_notes: dict[str, float] = {}
         self._range_bounds: set[str] = set()
         self._sat_dicts: dict[float, dict] = {}
+        self._chf_memo = None
+        self._chf_x_min = self.chf.validity.get("x", (None, None))[0]
         self._q_guess = 0.0
         self.dried_out = False
         self.dryout_z: float | None = None
@@ -383,11 +385,22 @@ class Marcher:
 
     # ---- local checks and derived values
     def _critical_flux(self, P, x, sat):
-        t = self.tube
-        avail = dict(self._sat_inputs(sat))
-        avail.update(P=P, G=t.G, x=x if x > 0.0 or self.chf.name == "groeneveld_2006" else 1e-4,
-                     D=t.D_i)
-        return self.chf(avail), avail
+        """Local critical heat flux [W/m^2] and the inputs it was evaluated with.
+
+        Below the quality range of the dryout method (a saturated-boiling method in
+        subcooled flow) it is taken just inside the edge of that range: critical heat
+        flux rises with subcooling, so this errs on the safe side. The last result is
+        kept, since the dryout check and the station ask for the same state.
+        """
+        memo = self._chf_memo
+        if memo is not None and memo[0] == P and memo[1] == x:
+            return memo[2], memo[3]
+        lo = self._chf_x_min
+        x_eval = lo + 1e-4 if lo is not None and x <= lo else x
+        avail = dict(self._sat_inputs(sat), P=P, G=self.tube.G, x=x_eval, D=self.tube.D_i)
+        q_chf = self.chf(avail)
+        self._chf_memo = (P, x, q_chf, avail)
+        return q_chf, avail
 
     def _station(self, z, P, h, hstate, local: _Local, duty, dpdz_f) -> Station:
         t = self.tube
