@@ -13,11 +13,8 @@ root search (a dozen marches) and is shown for information.
 from __future__ import annotations
 
 import argparse
-import cProfile
-import pstats
 import statistics
 import sys
-import time
 from pathlib import Path
 
 ROOT = Path(__file__).resolve().parent.parent
@@ -25,29 +22,9 @@ sys.path.insert(0, str(ROOT))
 
 import rating  # noqa: E402
 from rating.exchangers import kettle_march  # noqa: E402
-from rating.properties import Fluid, make_fluid  # noqa: E402
+from timing import cold_rating_times, property_share  # noqa: E402
 
 TARGET_MS = 100.0
-
-
-def _fluids(case):
-    """The saturating fluids of a case, whose caches a cold rating empties."""
-    specs = (case.boiling.fluid, case.heating.fluid)
-    return [f for f in (make_fluid(s) for s in specs if isinstance(s, str)) if isinstance(f, Fluid)]
-
-
-def property_share(case) -> float:
-    """Share of one rating's time in property calls (rating.properties, CoolProp)."""
-    prof = cProfile.Profile()
-    prof.enable()
-    rating.rate(case)
-    prof.disable()
-    stats = pstats.Stats(prof).stats
-    total = sum(v[2] for v in stats.values())
-    props = sum(v[2] for k, v in stats.items()
-                if "properties.py" in k[0] or "CoolProp" in k[0]
-                or (k[0] == "~" and "AbstractState" in k[2]))
-    return props / total if total else 0.0
 
 
 def marches(case) -> int:
@@ -79,14 +56,7 @@ def main(argv=None):
         for case in rating.load_project(path).cases:
             if case.type != "kettle":
                 continue
-            rating.rate(case)                         # import and warm the code paths
-            times = []
-            for _ in range(args.repeat):
-                for fl in _fluids(case):
-                    fl.clear_cache()                  # every rating starts cold
-                t0 = time.perf_counter()
-                rating.rate(case)
-                times.append(time.perf_counter() - t0)
+            times = cold_rating_times(case, args.repeat)
             median = 1e3 * statistics.median(times)
             flag = "" if case.question != "performance" or median < TARGET_MS else "  (over target)"
             print(f"{case.name:<62} {case.question:<12} {median:>10.1f} {1e3 * min(times):>8.1f} "

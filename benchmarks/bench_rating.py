@@ -11,30 +11,15 @@ liquid-heated one.
 from __future__ import annotations
 
 import argparse
-import cProfile
-import pstats
 import statistics
 import sys
-import time
 from pathlib import Path
 
 ROOT = Path(__file__).resolve().parent.parent
 sys.path.insert(0, str(ROOT))
 
 import rating  # noqa: E402
-
-
-def property_share(case) -> float:
-    prof = cProfile.Profile()
-    prof.enable()
-    rating.rate(case)
-    prof.disable()
-    stats = pstats.Stats(prof)
-    total = sum(v[2] for v in stats.stats.values())           # tottime over all functions
-    props = sum(v[2] for k, v in stats.stats.items()
-                if "properties.py" in k[0] or "CoolProp" in k[0] or k[0] == "~"
-                and "AbstractState" in k[2])
-    return props / total if total else 0.0
+from timing import cold_rating_times, property_share  # noqa: E402
 
 
 def main(argv=None):
@@ -47,33 +32,13 @@ def main(argv=None):
           f"{'property share':>15}")
     for path in files:
         for case in rating.load_project(path).cases:
-            rating.rate(case)                                   # warm the property caches' code paths
-            times = []
-            for _ in range(args.repeat):
-                for fl in _fluids(case):
-                    fl.clear_cache()                            # every rating starts cold
-                t0 = time.perf_counter()
-                rating.rate(case)
-                times.append(time.perf_counter() - t0)
-            for fl in _fluids(case):
-                fl.clear_cache()
+            times = cold_rating_times(case, args.repeat)
             share = property_share(case)
             heating = case.heating.kind + ("" if case.heating.kind == "steam"
                                            else f", {case.heating.flow_arrangement}")
             print(f"{case.name:<42} {case.type:<12} {heating:<16} "
                   f"{1e3 * statistics.median(times):>10.1f} {1e3 * min(times):>8.1f} "
                   f"{100 * share:>14.0f}%")
-
-
-def _fluids(case):
-    from rating.properties import Fluid, make_fluid
-    out = []
-    for spec in (case.boiling.fluid, case.heating.fluid):
-        if isinstance(spec, str):
-            f = make_fluid(spec)
-            if isinstance(f, Fluid):
-                out.append(f)
-    return out
 
 
 if __name__ == "__main__":

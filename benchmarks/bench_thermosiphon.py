@@ -13,7 +13,6 @@ from __future__ import annotations
 import argparse
 import statistics
 import sys
-import time
 from pathlib import Path
 
 ROOT = Path(__file__).resolve().parent.parent
@@ -21,19 +20,9 @@ sys.path.insert(0, str(ROOT))
 
 import rating
 from rating.exchangers import thermosiphon
-from rating.properties import Fluid, make_fluid
+from timing import cold_rating_times  # noqa: E402
 
 TARGET_MS = 200.0
-
-
-def _fluids(case):
-    out = []
-    for spec in (case.boiling.fluid, case.heating.fluid):
-        if isinstance(spec, str):
-            f = make_fluid(spec)
-            if isinstance(f, Fluid):
-                out.append(f)
-    return out
 
 
 def _evaluations(case) -> tuple[int, int]:
@@ -66,14 +55,8 @@ def main(argv=None):
         for case in rating.load_project(path).cases:
             if case.type != "thermosiphon":
                 continue
-            result = rating.rate(case)                      # warm the code paths
-            times = []
-            for _ in range(args.repeat):
-                for fl in _fluids(case):
-                    fl.clear_cache()                        # every rating starts cold
-                t0 = time.perf_counter()
-                rating.rate(case)
-                times.append(time.perf_counter() - t0)
+            result = rating.rate(case)
+            times = cold_rating_times(case, args.repeat)
             scan, full = _evaluations(case)
             heating = case.heating.kind + ("" if case.heating.kind == "steam"
                                            else f", {case.heating.flow_arrangement}")
