@@ -9,6 +9,7 @@ from __future__ import annotations
 import math
 
 from .correlations import registry
+from .march import WETTED_REGIMES
 from .results import RatingWarning
 
 #: Default, unit and source of every editable threshold.
@@ -131,7 +132,7 @@ def evaluate(case, outcome, *, fluid, service: str = "evaporator") -> list[Ratin
             f"to {max(t.T_wall_inner for t in st):.1f} K", outcome.dryout_z))
 
     # Heat flux close to critical before dryout.
-    wet = [s for s in st if s.regime in ("subcooled liquid", "subcooled boiling", "saturated boiling")]
+    wet = [s for s in st if s.regime in WETTED_REGIMES]
     if wet:
         worst = max(wet, key=lambda s: s.chf_ratio)
         if worst.chf_ratio > lim.chf_ratio and outcome.dryout_z is None:

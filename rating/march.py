@@ -43,6 +43,9 @@ from .errors import PropertyError
 REGIMES = ("subcooled liquid", "subcooled boiling", "saturated boiling",
            "post-dryout", "superheated vapour")
 
+#: Regimes with a wetted wall, where a flux-to-critical-flux ratio means something.
+WETTED_REGIMES = REGIMES[:3]
+
 
 class Cancelled(Exception):
     """Raised inside the march when the caller's cancel flag is set."""
@@ -128,7 +131,6 @@ class MarchOutcome:
     message: str = ""
     dryout_z: float | None = None
     range_notes: dict = field(default_factory=dict)   # message -> first z
-    stopped_at_duty: bool = False
     start_heating_state: object = None
     end_heating_state: object = None
     dryout_cause: str | None = None        # "critical heat flux" or "critical quality"
@@ -582,7 +584,7 @@ class Marcher:
                     bulk, local = self._local(z, P, h, hs, bulk)
                 stations.append(self._station(z, P, h, hs, local, duty, dpf))
                 if event == "duty":
-                    return self._outcome(stations, stopped=True)
+                    return self._outcome(stations)
                 if self.progress is not None:
                     self.progress(min(z / z_end, 1.0))
         except _PressureExhausted as exc:
@@ -624,10 +626,11 @@ class Marcher:
             step = min(step, 0.25 * t.mass_flow_per_tube * bulk[0].h_lv / (local.q * math.pi * t.D_i))
         return min(dz, max(step, self._SMALLEST_STEP * dz))
 
-    def _outcome(self, stations, status="ok", message="", stopped=False):
+    def _outcome(self, stations, status="ok", message=""):
         return MarchOutcome(stations, status, message, self.dryout_z, dict(self.range_notes),
-                            stopped, self._hs0, self._hs, self.dryout_cause,
-                            self.dryout_trigger_ratio)
+                            start_heating_state=self._hs0, end_heating_state=self._hs,
+                            dryout_cause=self.dryout_cause,
+                            dryout_trigger_ratio=self.dryout_trigger_ratio)
 
     # Events inside an increment, as functions of the end state; each is < 0 at the
     # start of the increment and >= 0 where the event has happened.

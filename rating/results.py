@@ -43,6 +43,10 @@ class RatingWarning:
     message: str
     z_m: float | None = None
 
+    def __post_init__(self):
+        if self.severity not in SEVERITIES:
+            raise ValueError(f"severity {self.severity!r} is not one of {SEVERITIES}")
+
     def to_dict(self) -> dict:
         return {"code": self.code, "severity": self.severity, "message": self.message,
                 "z_m": _clean(self.z_m)}
@@ -73,10 +77,6 @@ class Result:
     warnings: tuple[RatingWarning, ...] = ()
     methods: tuple[MethodUsed, ...] = ()
     extra: dict = field(default_factory=dict)
-
-    @property
-    def ok(self) -> bool:
-        return self.status != "failed"
 
     @property
     def has_errors(self) -> bool:

@@ -20,7 +20,8 @@ from .. import checks
 from ..correlations import registry
 from ..correlations.flow_boiling import kandlikar_fluid_factor, steiner_taborek_reference
 from ..correlations.pool_boiling import gorenflo_reference_htc
-from ..march import BoilingTube, Cancelled, Marcher, MarchOutcome, solve_counter_current
+from ..march import (WETTED_REGIMES, BoilingTube, Cancelled, Marcher, MarchOutcome,
+                     solve_counter_current)
 from ..errors import PropertyError
 from ..properties import make_fluid
 from ..results import MethodUsed, Result, RatingWarning, failed, profiles_from_stations
@@ -29,9 +30,6 @@ from .heating import LiquidHeating, SteamHeating, shell_geometry, tube_rows
 #: Default increment count along the heated path (midpoint rule): chosen so that
 #: doubling it moves the duty by well under 0.5 % on the samples (see tests).
 DEFAULT_INCREMENTS = 40
-
-#: Regimes with a wetted wall, where a flux-to-critical-flux ratio means something.
-WETTED = ("subcooled liquid", "subcooled boiling", "saturated boiling")
 
 #: How far past the real tube a duty check may march, in tube lengths.
 DUTY_CHECK_LENGTH_FACTOR = 10.0
@@ -328,7 +326,7 @@ def march_summary(case, tube, heating, hs_inlet, primary, performance, check) ->
         "heating_outlet_temperature_K": heating_out,
         "max_heat_flux_W_m2": max(s.q for s in st),
         # The wetted wall's ratio where dryout began counts: after it the flux collapses.
-        "max_chf_ratio": max([s.chf_ratio for s in st if s.regime in WETTED]
+        "max_chf_ratio": max([s.chf_ratio for s in st if s.regime in WETTED_REGIMES]
                              + [primary.dryout_trigger_ratio]),
         "dryout_z_m": primary.dryout_z,
         "exit_pressure_Pa": last.P,

@@ -463,7 +463,8 @@ class KettleMarch:
         for band in self.bands:
             for msg, z in band.range_notes.items():
                 notes.setdefault(msg, z)
-        return MarchOutcome(stations, status, message, None, notes, False, h0, h)
+        return MarchOutcome(stations, status, message, None, notes,
+                            start_heating_state=h0, end_heating_state=h)
 
     def _stable_step(self, h, loc, band, dz):
         """Increments of a liquid medium carry at most ``Marcher._NTU_PER_STEP`` units;
