@@ -38,7 +38,7 @@ from .correlations.dimensionless import g
 from .correlations.flow_boiling import flow_boiling_htc
 from .correlations.flow_pattern import wojtan_dryout_qualities
 from .correlations.single_phase import htc_tube_single_phase
-from .errors import PropertyError
+from .errors import OutOfRangeError, PropertyError
 
 REGIMES = ("subcooled liquid", "subcooled boiling", "saturated boiling",
            "post-dryout", "superheated vapour")
@@ -135,6 +135,7 @@ class MarchOutcome:
     end_heating_state: object = None
     dryout_cause: str | None = None        # "critical heat flux" or "critical quality"
     dryout_trigger_ratio: float = 0.0      # q/q_chf of the wetted wall where dryout began
+    pressure_exhausted: bool = False       # failed because friction and acceleration used up P
 
 
 class HeatingSide:
@@ -571,7 +572,8 @@ class Marcher:
                 if P <= 0.0 or not math.isfinite(P):
                     return self._outcome(stations, "failed",
                                          f"the pressure falls to zero at z = {z:.3f} m: "
-                                         "the boiling-side pressure drop exceeds the inlet pressure")
+                                         "the boiling-side pressure drop exceeds the inlet pressure",
+                                         exhausted=True)
                 if end_local is not None:
                     bulk, local = end_local
                     self._note_ranges_at(z, local)
@@ -591,9 +593,12 @@ class Marcher:
             return self._outcome(stations, "failed", (
                 f"the boiling-side pressure is used up by friction and acceleration at "
                 f"z = {exc.z:.3f} m: the flow is too large for these tubes (choking is not "
-                "modelled); use more tubes or passes with fewer tubes in series"))
+                "modelled); use more tubes or passes with fewer tubes in series"), exhausted=True)
         except PropertyError as exc:
-            return self._outcome(stations, "failed", f"at z = {z:.3f} m: {exc}")
+            # A pressure below the triple point is the same exhaustion, seen by the properties.
+            low = (isinstance(exc, OutOfRangeError) and set(exc.state) == {"P"}
+                   and not exc.state["P"] >= P0)
+            return self._outcome(stations, "failed", f"at z = {z:.3f} m: {exc}", exhausted=low)
         except (ValueError, ZeroDivisionError, OverflowError, RuntimeError) as exc:
             return self._outcome(stations, "failed", f"no solution at z = {z:.3f} m: {exc}")
         if stop_duty is not None:
@@ -626,11 +631,12 @@ class Marcher:
             step = min(step, 0.25 * t.mass_flow_per_tube * bulk[0].h_lv / (local.q * math.pi * t.D_i))
         return min(dz, max(step, self._SMALLEST_STEP * dz))
 
-    def _outcome(self, stations, status="ok", message=""):
+    def _outcome(self, stations, status="ok", message="", *, exhausted=False):
         return MarchOutcome(stations, status, message, self.dryout_z, dict(self.range_notes),
                             start_heating_state=self._hs0, end_heating_state=self._hs,
                             dryout_cause=self.dryout_cause,
-                            dryout_trigger_ratio=self.dryout_trigger_ratio)
+                            dryout_trigger_ratio=self.dryout_trigger_ratio,
+                            pressure_exhausted=exhausted)
 
     # Events inside an increment, as functions of the end state; each is < 0 at the
     # start of the increment and >= 0 where the event has happened.

@@ -108,9 +108,6 @@ KERN_FLUX_AQUEOUS = 30000.0 * 3.154591
 #: The pressure-using parts of the loop, in flow order (keys of LoopPoint.parts).
 PARTS = ("inlet_line", "tube_entrance", "tubes", "tube_exit", "return_line", "back_pressure")
 
-#: March failures that mean the loop has used up the pressure (the flow is too large).
-_EXHAUSTED = ("pressure falls to zero", "pressure is used up", "triple-point pressure")
-
 
 @dataclass
 class LoopPoint:
@@ -243,7 +240,7 @@ class _Loop:
         outcome = self._march(W, P_in, n)
         point.outcome = outcome
         if outcome.status != "ok":
-            point.exhausted = any(s in outcome.message for s in _EXHAUSTED)
+            point.exhausted = outcome.pressure_exhausted
             point.note = outcome.message
             return point
         last = outcome.stations[-1]
