@@ -40,4 +40,20 @@ def rate(case, *, increments=None, progress=None, cancel=None) -> Result:
     before any rating starts (they are found when the case is built).
     """
     from .exchangers import rate_case
-    return rate_case(case, increments=increments, progress=progress, cancel=cancel)
+    result = rate_case(case, increments=increments, progress=progress, cancel=cancel)
+    return _with_plausibility(case, result)
+
+
+def _with_plausibility(case, result: Result) -> Result:
+    """Add a warning for every input outside its usual range (a unit typed wrong)."""
+    import dataclasses
+
+    from .catalogue import usual_range_warnings
+    from .results import RatingWarning
+
+    found = tuple(RatingWarning("input-outside-usual-range", "warning", p.message)
+                  for p in usual_range_warnings(case))
+    if not found:
+        return result
+    status = "warnings" if result.status == "ok" else result.status
+    return dataclasses.replace(result, status=status, warnings=found + result.warnings)

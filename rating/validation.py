@@ -482,6 +482,8 @@ def check_case(case) -> None:
     if case.heating.kind == "liquid" and case.shell is None and case.type != "kettle":
         _fail("shell", None, "", "required when heating.kind = 'liquid' "
               "(the shell-side coefficient needs the shell and its baffles)")
+    from .catalogue import check_hard_ranges  # every number within its catalogue range
+    check_hard_ranges(case)
     _check_temperatures(case)
 
 

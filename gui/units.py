@@ -1,0 +1,132 @@
+"""Display units: SI, metric and US customary, for the desktop and the report.
+
+The engine stores and computes in SI only; this module turns an SI value of a
+catalogue quantity (``rating.catalogue.QUANTITIES``) into the number and unit a
+reader of the chosen system expects, and back. The factors come from pint, so no
+conversion constant is written by hand. Pressures are always absolute and say so
+in their label; temperature differences convert without the offset.
+"""
+from __future__ import annotations
+
+import math
+from functools import cache
+
+SYSTEMS = ("SI", "metric", "US")
+SYSTEM_TITLES = {"SI": "SI", "metric": "Metric", "US": "US customary"}
+
+# quantity -> {system: (pint unit, label)}; pint units are converted from the SI unit.
+_UNITS = {
+    "length": {"SI": ("m", "m"), "metric": ("m", "m"), "US": ("ft", "ft")},
+    "diameter": {"SI": ("mm", "mm"), "metric": ("mm", "mm"), "US": ("inch", "in")},
+    "area": {"SI": ("m**2", "m²"), "metric": ("m**2", "m²"), "US": ("ft**2", "ft²")},
+    "pressure": {"SI": ("kPa", "kPa(a)"), "metric": ("bar", "bar(a)"), "US": ("psi", "psia")},
+    "pressure_difference": {"SI": ("kPa", "kPa"), "metric": ("mbar", "mbar"),
+                            "US": ("psi", "psi")},
+    "temperature": {"SI": ("degC", "°C"), "metric": ("degC", "°C"), "US": ("degF", "°F")},
+    "temperature_difference": {"SI": ("K", "K"), "metric": ("K", "K"),
+                               "US": ("delta_degF", "°F")},
+    "mass_flow": {"SI": ("kg/s", "kg/s"), "metric": ("kg/h", "kg/h"), "US": ("lb/h", "lb/h")},
+    "mass_flux": {"SI": ("kg/m**2/s", "kg/(m²·s)"), "metric": ("kg/m**2/s", "kg/(m²·s)"),
+                  "US": ("lb/ft**2/h", "lb/(ft²·h)")},
+    "power": {"SI": ("kW", "kW"), "metric": ("kW", "kW"), "US": ("Btu/h", "Btu/h")},
+    "heat_flux": {"SI": ("kW/m**2", "kW/m²"), "metric": ("kW/m**2", "kW/m²"),
+                  "US": ("Btu/h/ft**2", "Btu/(h·ft²)")},
+    "htc": {"SI": ("W/m**2/K", "W/(m²·K)"), "metric": ("W/m**2/K", "W/(m²·K)"),
+            "US": ("Btu/h/ft**2/delta_degF", "Btu/(h·ft²·°F)")},
+    "fouling_resistance": {"SI": ("m**2*K/W", "m²·K/W"), "metric": ("m**2*K/W", "m²·K/W"),
+                           "US": ("h*ft**2*delta_degF/Btu", "h·ft²·°F/Btu")},
+    "conductivity": {"SI": ("W/m/K", "W/(m·K)"), "metric": ("W/m/K", "W/(m·K)"),
+                     "US": ("Btu/h/ft/delta_degF", "Btu/(h·ft·°F)")},
+    "velocity": {"SI": ("m/s", "m/s"), "metric": ("m/s", "m/s"), "US": ("ft/s", "ft/s")},
+    "density": {"SI": ("kg/m**3", "kg/m³"), "metric": ("kg/m**3", "kg/m³"),
+                "US": ("lb/ft**3", "lb/ft³")},
+    "momentum_flux": {"SI": ("kg/m/s**2", "kg/(m·s²)"), "metric": ("kg/m/s**2", "kg/(m·s²)"),
+                      "US": ("lb/ft/s**2", "lb/(ft·s²)")},
+}
+# Quantities shown as they are stored, whatever the system.
+_PLAIN = {"dimensionless": "–", "fraction": "–", "percent": "%", "count": "", "angle": "°",
+          "text": "", "choice": "", "flag": ""}
+_SI = {"length": "m", "diameter": "m", "area": "m**2", "pressure": "Pa",
+       "pressure_difference": "Pa", "temperature": "K", "temperature_difference": "K",
+       "mass_flow": "kg/s", "mass_flux": "kg/m**2/s", "power": "W", "heat_flux": "W/m**2",
+       "htc": "W/m**2/K", "fouling_resistance": "m**2*K/W", "conductivity": "W/m/K",
+       "velocity": "m/s", "density": "kg/m**3", "momentum_flux": "kg/m/s**2"}
+
+
+@cache
+def _registry():
+    import pint
+
+    return pint.UnitRegistry()
+
+
+@cache
+def _linear(quantity: str, system: str) -> tuple[float, float]:
+    """(scale, offset) with display = scale * SI + offset, from pint."""
+    ureg = _registry()
+    target = _UNITS[quantity][system][0]
+    q = ureg.Quantity
+    zero = q(0.0, _SI[quantity]).to(target).magnitude
+    one = q(1.0, _SI[quantity]).to(target).magnitude
+    return one - zero, zero
+
+
+def _check(quantity: str, system: str) -> None:
+    if system not in SYSTEMS:
+        raise ValueError(f"unit system {system!r}: must be one of {', '.join(SYSTEMS)}")
+    if quantity not in _UNITS and quantity not in _PLAIN:
+        raise ValueError(f"no display unit for the quantity {quantity!r}")
+
+
+def unit_label(quantity: str, system: str) -> str:
+    """The unit a reader of ``system`` sees beside a value of ``quantity``."""
+    _check(quantity, system)
+    if quantity in _PLAIN:
+        return _PLAIN[quantity]
+    return _UNITS[quantity][system][1]
+
+
+def to_display(value_si, quantity: str, system: str):
+    """An SI value in the display unit of ``system``; None stays None."""
+    _check(quantity, system)
+    if value_si is None or quantity in _PLAIN or isinstance(value_si, (str, bool)):
+        return value_si
+    scale, offset = _linear(quantity, system)
+    return float(value_si) * scale + offset
+
+
+def from_display(value, quantity: str, system: str):
+    """A value typed in the display unit of ``system`` back in SI; None stays None."""
+    _check(quantity, system)
+    if value is None or quantity in _PLAIN or isinstance(value, (str, bool)):
+        return value
+    scale, offset = _linear(quantity, system)
+    return (float(value) - offset) / scale
+
+
+def format_value(value_si, quantity: str, system: str, digits: int = 4) -> str:
+    """``"1,234 kW"``-style text with ``digits`` significant figures; None is "not computed"."""
+    if value_si is None or (isinstance(value_si, float) and not math.isfinite(value_si)):
+        return "not computed"
+    if isinstance(value_si, str):
+        return value_si
+    value = to_display(value_si, quantity, system)
+    label = unit_label(quantity, system)
+    return f"{format_number(value, digits)} {label}".rstrip()
+
+
+def format_number(value, digits: int = 4) -> str:
+    """A number to ``digits`` significant figures, thousands grouped, no exponent below 1e7."""
+    if value is None:
+        return "not computed"
+    if isinstance(value, bool) or not isinstance(value, (int, float)):
+        return str(value)
+    if isinstance(value, int):
+        return f"{value:,}"
+    if value == 0 or not math.isfinite(value):
+        return f"{value:g}"
+    magnitude = math.floor(math.log10(abs(value)))
+    if magnitude >= 7 or magnitude < -4:
+        return f"{value:.{digits - 1}e}"
+    decimals = max(0, digits - 1 - magnitude)
+    return f"{value:,.{decimals}f}"
