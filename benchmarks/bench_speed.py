@@ -1,0 +1,188 @@
+"""Benchmark: Ebullio against the plain reference march, every sample, the first rating.
+
+One run prints:
+
+1. the reference case (benchmarks/reference_march.py: n-pentane at 3 bar in 3 m
+   vertical tubes on steam, 100 increments) rated by the plain reference march and
+   by Ebullio in the same process, their medians and minima and the ratio, with
+   the answers side by side;
+2. the property calls per increment of both: PropsSI calls for the reference,
+   CoolProp flashes (``AbstractState.update``) for Ebullio;
+3. every case of every sample: the median and the smallest wall time of repeated
+   ratings in a warm process (imports done, code paths run once; the property
+   caches emptied before each rating) against the target of its type;
+4. the first rating in a fresh process, imports included (median of a few fresh
+   processes), beside the bare interpreter and the imports of CoolProp and
+   scipy.optimize alone.
+
+Targets (issue 10, on the 2-core development machine): the reference case at
+least 8 times faster than the reference march; every thermosiphon sample under
+100 ms, every evaporator sample under 60 ms, every kettle sample under 120 ms
+(medians). The machine is shared: the load average is printed before and after,
+and the minima are the figures least disturbed by other work.
+
+    python benchmarks/bench_speed.py [--repeat N] [--fresh N] [--skip-fresh]
+"""
+from __future__ import annotations
+
+import argparse
+import os
+import statistics
+import subprocess
+import sys
+import time
+from pathlib import Path
+
+ROOT = Path(__file__).resolve().parent.parent
+sys.path[:0] = [str(ROOT), str(Path(__file__).resolve().parent)]
+
+import rating  # noqa: E402
+from rating.properties import make_fluid  # noqa: E402
+from reference_march import reference_rating  # noqa: E402
+from timing import cold_rating_times, property_fluids  # noqa: E402
+
+TARGET_MS = {"thermosiphon": 100.0, "evaporator": 60.0, "kettle": 120.0}
+TARGET_RATIO = 8.0
+REFERENCE_FILE = ROOT / "samples" / "pentane-vaporiser.ebullio"
+REFERENCE_INCREMENTS = 100
+
+
+class _CountingState:
+    """Stands in for a CoolProp AbstractState and counts its flashes."""
+
+    def __init__(self, state, counter):
+        self._s, self._n = state, counter
+
+    def update(self, *args):
+        self._n[0] += 1
+        return self._s.update(*args)
+
+    def __getattr__(self, name):
+        return getattr(self._s, name)
+
+
+def flashes(case, increments) -> int:
+    """CoolProp flashes in one rating of the case (property caches emptied first)."""
+    rating.rate(case, increments=increments)
+    fluids = property_fluids(case)
+    counter = [0]
+    originals = [f._state for f in fluids]
+    for f in fluids:
+        f.clear_cache()
+        f._state = _CountingState(f._state, counter)
+    try:
+        rating.rate(case, increments=increments)
+    finally:
+        for f, s in zip(fluids, originals):
+            f._state = s
+    return counter[0]
+
+
+def _ms(times):
+    return 1e3 * statistics.median(times), 1e3 * min(times)
+
+
+def side_by_side(repeat):
+    case = rating.load_project(REFERENCE_FILE).cases[0]
+    ref_times, out = [], None
+    for _ in range(max(3, repeat // 3)):
+        t0 = time.perf_counter()
+        out = reference_rating(REFERENCE_INCREMENTS)
+        ref_times.append(time.perf_counter() - t0)
+    rating.rate(case, increments=REFERENCE_INCREMENTS)
+    ours_times = []
+    fluids = property_fluids(case)
+    for _ in range(repeat):
+        for f in fluids:
+            f.clear_cache()
+        t0 = time.perf_counter()
+        result = rating.rate(case, increments=REFERENCE_INCREMENTS)
+        ours_times.append(time.perf_counter() - t0)
+    ref_med, ref_min = _ms(ref_times)
+    our_med, our_min = _ms(ours_times)
+    print(f"1. Reference case, {REFERENCE_INCREMENTS} increments "
+          f"(n-pentane, 3 bar, 3 m vertical tubes, 2 bar(a) steam)")
+    print(f"   {'':28s} {'median ms':>10} {'min ms':>8} {'duty kW':>9} {'exit x':>8} "
+          f"{'dryout z m':>10}")
+    s = result.summary
+    print(f"   {'reference march (PropsSI)':28s} {ref_med:>10.1f} {ref_min:>8.1f} "
+          f"{out['duty_W'] / 1e3:>9.1f} {out['exit_quality']:>8.4f} {out['dryout_z_m']:>10.3f}")
+    print(f"   {'Ebullio':28s} {our_med:>10.1f} {our_min:>8.1f} {s['duty_W'] / 1e3:>9.1f} "
+          f"{s['exit_quality']:>8.4f} {s['dryout_z_m']:>10.3f}")
+    ratio = ref_med / our_med
+    print(f"   ratio (reference / Ebullio): median {ratio:.1f}x, minima "
+          f"{ref_min / our_min:.1f}x  (target >= {TARGET_RATIO:g}x: "
+          f"{'met' if ratio >= TARGET_RATIO else 'NOT met'})")
+    n_flash = flashes(case, REFERENCE_INCREMENTS)
+    print("2. Property calls per increment (reference: PropsSI calls; Ebullio: CoolProp flashes)")
+    print(f"   reference march {out['property_calls_per_increment']:.1f}   "
+          f"Ebullio {n_flash / REFERENCE_INCREMENTS:.2f} ({n_flash} in the rating, "
+          "both marches of the condensate-film law included)")
+
+
+def samples(repeat):
+    print(f"3. Every sample case, warm process, {repeat} ratings each, property caches emptied")
+    print(f"   {'case':<58} {'type':<12} {'median ms':>10} {'min ms':>8} {'target':>7} "
+          f"{'flashes':>8}")
+    missed = 0
+    for path in sorted((ROOT / "samples").glob("*.ebullio")):
+        for case in rating.load_project(path).cases:
+            med, low = _ms(cold_rating_times(case, repeat))
+            target = TARGET_MS.get(case.type)
+            ok = target is None or med < target
+            missed += not ok
+            print(f"   {case.name[:58]:<58} {case.type:<12} {med:>10.1f} {low:>8.1f} "
+                  f"{target:>7.0f} {flashes(case, None):>8}{'' if ok else '  over'}")
+    print(f"   {'all within target' if not missed else f'{missed} case(s) over target'}")
+
+
+def _fresh(code, runs):
+    """Median wall time [ms] of fresh interpreters running ``code`` (from the project root)."""
+    times = []
+    for _ in range(runs):
+        t0 = time.perf_counter()
+        subprocess.run([sys.executable, "-c", code], cwd=ROOT, check=True,
+                       stdout=subprocess.DEVNULL)
+        times.append(time.perf_counter() - t0)
+    return 1e3 * statistics.median(times), 1e3 * min(times)
+
+
+def fresh(runs):
+    rate_code = ("import rating; p = rating.load_project('samples/pentane-vaporiser.ebullio'); "
+                 "rating.rate(p.cases[0])")
+    rows = [
+        ("bare interpreter", "pass"),
+        ("import CoolProp.CoolProp", "import CoolProp.CoolProp"),
+        ("import scipy.optimize", "import scipy.optimize"),
+        ("import rating", "import rating"),
+        ("import rating + first rating (pentane)", rate_code),
+        ("ebullio-rate pentane sample (CLI)", "import sys; from rating.cli import main; "
+         "sys.argv = ['ebullio-rate', 'samples/pentane-vaporiser.ebullio']; main()"),
+    ]
+    print(f"4. Fresh process, wall time of the whole interpreter, median of {runs} "
+          "(min in brackets)")
+    for label, code in rows:
+        med, low = _fresh(code, runs)
+        print(f"   {label:<42} {med:>8.0f} ms ({low:.0f})")
+
+
+def main(argv=None):
+    p = argparse.ArgumentParser(description=__doc__.splitlines()[0])
+    p.add_argument("--repeat", type=int, default=15)
+    p.add_argument("--fresh", type=int, default=5)
+    p.add_argument("--skip-fresh", action="store_true")
+    args = p.parse_args(argv)
+    import CoolProp
+    print(f"load average before: {' '.join(f'{v:.2f}' for v in os.getloadavg())}  "
+          f"({os.cpu_count()} cores); CoolProp {CoolProp.__version__}, Python "
+          f"{sys.version.split()[0]}")
+    make_fluid("Water")
+    side_by_side(args.repeat)
+    samples(args.repeat)
+    if not args.skip_fresh:
+        fresh(args.fresh)
+    print(f"load average after: {' '.join(f'{v:.2f}' for v in os.getloadavg())}")
+
+
+if __name__ == "__main__":
+    main()
