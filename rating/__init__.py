@@ -17,6 +17,7 @@ from .case import (BoilingStream, Case, HeatingMedium, KettleShell, Limits, Meth
                    Project, Shell, ThermosiphonLoop, Tubes)
 from .errors import InputError, ProjectFileError, PropertyError, RatingError  # noqa: F401
 from .results import Result  # noqa: F401
+from .vendor import VendorFigures, VendorTolerances  # noqa: F401
 
 
 def load_project(path):

@@ -11,6 +11,8 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass, field
 
+from .vendor import VendorFigures, VendorTolerances  # noqa: F401  (a case's optional part)
+
 # Birmingham Wire Gauge wall thickness [m] (TEMA RCB-2.21 / ASME B36 gauge table).
 BWG_THICKNESS = {
     7: 4.572e-3, 8: 4.191e-3, 9: 3.759e-3, 10: 3.404e-3, 11: 3.048e-3, 12: 2.769e-3,
@@ -391,6 +393,8 @@ class Case:
 
     # --- kettle fields
     kettle: KettleShell | None = None
+    # --- what a vendor's proposal states (rating.vendor); None = no proposal
+    vendor: VendorFigures | None = None
 
     def __post_init__(self):
         from .validation import check_case

@@ -1,4 +1,8 @@
-"""The headless command: ``ebullio-rate FILE [--case NAME] [--json] [--csv DIR] [--increments N]``.
+"""The headless command: ``ebullio-rate FILE [--case NAME] [--json] [--csv DIR] [--increments N]
+[--report OUT.pdf|OUT.html [--units SI|metric|US]]``.
+
+Reports are written by a writer passed in to ``main`` (the console script's entry
+point, ``gui.report.command``, passes Ebullio's): the engine imports no Qt or plotting.
 
 Exit status: 0 rated; 1 rated with an error-severity warning, or not converged;
 2 bad input (one line on stderr, no traceback).
@@ -46,7 +50,14 @@ def _parser():
     p.add_argument("--csv", metavar="DIR", help="write the profiles of each case as CSV into DIR")
     p.add_argument("--increments", type=int, metavar="N",
                    help="increments along the heated length (default: the case's or the engine's)")
+    p.add_argument("--report", metavar="OUT", help="write a rating report, OUT.pdf or OUT.html")
+    p.add_argument("--units", choices=REPORT_UNITS, default="SI",
+                   help="unit system of the report (default SI)")
     return p
+
+
+REPORT_UNITS = ("SI", "metric", "US")
+REPORT_SUFFIXES = (".pdf", ".html", ".htm")
 
 
 # Display of further summary keys by their unit suffix: (suffix, scale, offset, unit).
@@ -96,6 +107,21 @@ def table(result) -> str:
     return "\n".join(lines)
 
 
+def vendor_table(comparison) -> str:
+    """The vendor comparison of one case, beside the summary table."""
+    from .vendor import describe, deviation_text
+
+    lines = [f"  Vendor figures{f' ({comparison.source})' if comparison.source else ''}:"
+             f" {describe(comparison)}"]
+    for r in comparison.rows:
+        _, _, scale, offset, unit = _row_for(r.key or r.figure)
+        note = f"  ({r.note})" if r.note else ""
+        lines.append(f"    {r.figure.replace('_', ' '):<24} vendor {_fmt(r.vendor, scale, offset):>10}"
+                     f"  Ebullio {_fmt(r.ebullio, scale, offset):>10} {unit:<7}"
+                     f" {deviation_text(r):>14}  {r.verdict}{note}")
+    return "\n".join(lines)
+
+
 def write_csv(result, directory: Path) -> Path:
     directory.mkdir(parents=True, exist_ok=True)
     safe = "".join(c if c.isalnum() or c in "-_." else "_" for c in result.name)
@@ -109,14 +135,23 @@ def write_csv(result, directory: Path) -> Path:
     return path
 
 
-def main(argv=None) -> int:
+def main(argv=None, report_writer=None) -> int:
+    """Run the command. ``report_writer(project, cases, results, path, units, source_path)``
+    writes ``--report``; without one, ``--report`` is refused."""
     from . import load_project, rate
     from .errors import InputError, RatingError
+    from .vendor import compare
 
     args = _parser().parse_args(argv)
     try:
         if args.increments is not None and not 4 <= args.increments <= 5000:
             raise InputError(f"--increments = {args.increments}: must be between 4 and 5000")
+        if args.report is not None:
+            if report_writer is None:
+                raise InputError("--report: reports are written by the ebullio-rate command "
+                                 "installed with Ebullio's 'gui' extra")
+            if Path(args.report).suffix.lower() not in REPORT_SUFFIXES:
+                raise InputError(f"--report {args.report}: must end in .pdf or .html")
         project = load_project(args.file)
         cases = project.cases
         if args.case is not None:
@@ -125,16 +160,23 @@ def main(argv=None) -> int:
                 names = ", ".join(c.name for c in project.cases) or "none"
                 raise InputError(f"--case {args.case!r}: no such case in {args.file} (cases: {names})")
         results = [rate(c, increments=args.increments) for c in cases]
+        comparisons = [compare(c, r) for c, r in zip(cases, results)]
+        if args.report is not None:
+            report_writer(project, cases, results, args.report, args.units,
+                          source_path=args.file)
     except (RatingError, OSError) as exc:
         msg = str(exc).splitlines()[0] if str(exc) else type(exc).__name__
         print(f"ebullio-rate: {msg}", file=sys.stderr)
         return 2
     if args.json:
-        json.dump({"cases": [r.to_dict() for r in results]}, sys.stdout, indent=1)
+        json.dump({"cases": [dict(r.to_dict(), vendor_comparison=v.to_dict() if v else None)
+                             for r, v in zip(results, comparisons)]}, sys.stdout, indent=1)
         sys.stdout.write("\n")
     else:
-        for r in results:
+        for r, v in zip(results, comparisons):
             print(table(r))
+            if v is not None:
+                print(vendor_table(v))
             print()
         print(CAUTION)
     if args.csv:

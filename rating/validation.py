@@ -453,6 +453,51 @@ def _check_kettle_case(case) -> None:
               + ", ".join(map(str, KETTLE_COUNT_PASSES)) + " passes only; give the count")
 
 
+# --- vendor figures -----------------------------------------------------------------
+
+#: Unit and rule of each vendor figure (rating.vendor.VendorFigures).
+_VENDOR_RULES = {
+    "duty": ("W", "positive"), "area": ("m^2", "positive"),
+    "u_clean": ("W/m^2/K", "positive"), "u_service": ("W/m^2/K", "positive"),
+    "over_design": ("%", "over_design"),
+    "pressure_drop_boiling": ("Pa", "non_negative"), "pressure_drop_heating": ("Pa", "non_negative"),
+    "exit_quality": ("", "fraction"), "circulation_rate": ("kg/s", "positive"),
+    "circulation_ratio": ("", "positive"), "max_heat_flux": ("W/m^2", "positive"),
+    "heating_flow": ("kg/s", "positive"),
+}
+MAX_OVER_DESIGN = 1000.0       # [%]; a stated over-design beyond this is a typing error
+
+
+def check_vendor(figures) -> None:
+    """The figures of a ``VendorFigures`` (any subset; None = not stated)."""
+    from .vendor import VendorTolerances
+
+    if not isinstance(figures.source, str):
+        _fail("source", figures.source, "", "must be text (the proposal's name and revision)")
+    for name, (unit, rule) in _VENDOR_RULES.items():
+        value = getattr(figures, name)
+        if value is None:
+            continue
+        if rule == "positive":
+            _positive(name, value, unit)
+        elif rule == "non_negative":
+            _non_negative(name, value, unit)
+        elif rule == "fraction":
+            _between(name, value, unit, 0.0, 1.0, note="vapour mass fraction")
+        else:
+            _between(name, value, unit, -100.0, MAX_OVER_DESIGN, lo_closed=False)
+    if not isinstance(figures.tolerances, VendorTolerances):
+        _fail("tolerances", figures.tolerances, "", "must be a VendorTolerances")
+
+
+def check_vendor_tolerances(tolerances) -> None:
+    """Comparison bands: percent of Ebullio's value, points of over-design, absolute quality."""
+    for f in dataclasses.fields(tolerances):
+        unit, hi = {"over_design": ("points", 100.0), "exit_quality": ("", 1.0)}.get(
+            f.name, ("%", 100.0))
+        _between(f.name, getattr(tolerances, f.name), unit, 0.0, hi, lo_closed=False)
+
+
 # --- the case ----------------------------------------------------------------------
 
 def check_case(case) -> None:
@@ -464,6 +509,9 @@ def check_case(case) -> None:
             _fail(name, getattr(case, name), "", f"must be a {cls.__name__}")
     if case.shell is not None and not isinstance(case.shell, Shell):
         _fail("shell", case.shell, "", "must be a Shell or None")
+    from .vendor import VendorFigures
+    if case.vendor is not None and not isinstance(case.vendor, VendorFigures):
+        _fail("vendor", case.vendor, "", "must be a VendorFigures or None")
     _choice("type", case.type, EXCHANGER_TYPES)
     question = _choice("question", case.question, QUESTIONS)
     if question == "duty_check" and case.required_duty is None:
