@@ -32,6 +32,7 @@ from .case import (BWG_THICKNESS, EXCHANGER_TYPES, FLOW_ARRANGEMENTS, HEATING_KI
                    ThermosiphonLoop, Tubes)
 from .errors import InputError
 from .validation import INCREMENTS as _INCREMENTS
+from .vendor import TOLERANCE_BASIS, VendorFigures, VendorTolerances
 
 #: Physical quantities and their SI units (the unit every value is stored in).
 QUANTITIES = {
@@ -49,7 +50,7 @@ GROUPS = (
     ("service", "Service and question"), ("boiling", "Boiling side"),
     ("heating", "Heating side"), ("tubes", "Tubes"), ("shell", "Shell (heating side)"),
     ("kettle", "Kettle shell"), ("thermosiphon", "Thermosiphon loop"),
-    ("methods", "Methods"), ("limits", "Limits"),
+    ("methods", "Methods"), ("limits", "Limits"), ("vendor", "Vendor's figures"),
 )
 
 _GROUP_TITLES = dict(GROUPS)
@@ -60,7 +61,7 @@ IN_TUBE = ("evaporator", "thermosiphon")
 #: The case's parts: path prefix -> dataclass.
 PARTS = {"tubes": Tubes, "shell": Shell, "boiling": BoilingStream, "heating": HeatingMedium,
          "methods": Methods, "limits": Limits, "thermosiphon": ThermosiphonLoop,
-         "kettle": KettleShell}
+         "kettle": KettleShell, "vendor": VendorFigures, "vendor.tolerances": VendorTolerances}
 
 #: Smallest and largest number of increments along the heated length (decided once, in
 #: ``rating.validation``).
@@ -212,6 +213,59 @@ _LIMIT_OPEN = {
     "kettle_surface_velocity_constant": _OPEN_LO, "kettle_vapour_nozzle_rho_v2": _OPEN_LO,
     "kettle_inlet_nozzle_rho_v2": _OPEN_LO,
 }
+
+#: A vendor's stated figures: (name, label, quantity, hard, usual, types, help).
+_VENDOR = (
+    ("duty", "Duty", "power", _POS, (1e3, 2e8), ALL, "The duty the proposal states"),
+    ("area", "Area (outside)", "area", _POS, (0.1, 5000.0), ALL,
+     "Outside heat-transfer area the proposal states"),
+    ("u_clean", "U clean", "htc", _POS, (50.0, 10000.0), ALL,
+     "Overall coefficient without fouling, on the outside area"),
+    ("u_service", "U service", "htc", _POS, (50.0, 10000.0), ALL,
+     "Overall coefficient with fouling, on the outside area"),
+    ("over_design", "Over-design", "percent", (-100.0, 1000.0), (-20.0, 100.0), ALL,
+     "The margin the proposal states over the required duty"),
+    ("pressure_drop_boiling", "Pressure drop, boiling side", "pressure_difference",
+     (0.0, None), (0.0, 2e5), ALL, ""),
+    ("pressure_drop_heating", "Pressure drop, heating side", "pressure_difference",
+     (0.0, None), (0.0, 2e5), ALL, ""),
+    ("exit_quality", "Exit vapour quality", "fraction", (0.0, 1.0), (0.0, 1.0), ALL,
+     "Vapour mass fraction leaving the heated length"),
+    ("circulation_rate", "Circulation", "mass_flow", _POS, (0.01, 1000.0), ("thermosiphon",),
+     "Flow through the tubes of the thermosiphon"),
+    ("circulation_ratio", "Circulation ratio", "dimensionless", _POS, (1.5, 50.0),
+     ("thermosiphon",), "Circulation over vapour generated"),
+    ("max_heat_flux", "Largest local heat flux", "heat_flux", _POS, (1e3, 3e5), ALL,
+     "The largest local flux the unit runs at"),
+    ("heating_flow", "Heating medium flow", "mass_flow", _POS, (0.005, 1000.0), ALL,
+     "Steam condensed, or the heating liquid's flow"),
+)
+_OPEN = {"duty", "area", "u_clean", "u_service", "over_design", "circulation_rate",
+         "circulation_ratio", "max_heat_flux", "heating_flow"}
+
+
+def _vendor_fields():
+    """A vendor's figures (all optional) and the tolerance of each comparison row."""
+    out = [_field("vendor.source", "Proposal (vendor, document, revision)", "text", "vendor",
+                  "Names the proposal whose figures are compared")]
+    out += [_field(f"vendor.{name}", label, quantity, "vendor", help, hard=hard, usual=usual,
+                   types=types, hard_open=_OPEN_LO if name in _OPEN else (False, False))
+            for name, label, quantity, hard, usual, types, help in _VENDOR]
+    for name, label, quantity, _hard, _usual, types, _help in _VENDOR:
+        unit_word = {"over_design": "percentage points", "exit_quality": "absolute"}.get(
+            name, "% of Ebullio's value")
+        out.append(_field(f"vendor.tolerances.{name}", f"Tolerance on {label[0].lower()}"
+                          f"{label[1:]} ({unit_word})",
+                          "fraction" if name == "exit_quality" else "percent", "vendor",
+                          TOLERANCE_BASIS[name], types=types, hard_open=_OPEN_LO,
+                          hard=(0.0, 1.0) if name == "exit_quality" else (0.0, 100.0)))
+    return out
+
+
+def vendor_label(figure: str) -> str:
+    """The label of a vendor figure (``rating.vendor`` row name), as every surface shows it."""
+    return input_field(f"vendor.{figure}").label
+
 
 _METHOD_LABELS = {
     "flow_boiling": ("Flow boiling coefficient", IN_TUBE),
@@ -425,6 +479,7 @@ INPUTS: tuple[InputField, ...] = tuple([
            hard=(0.0, 0.01), usual=(0.0, 5e-4), types=("thermosiphon",)),
     *_method_fields(),
     *_limit_fields(),
+    *_vendor_fields(),
 ])
 
 _BY_PATH = {f.path: f for f in INPUTS}
@@ -503,6 +558,8 @@ def applies(field: InputField | str, draft: dict) -> bool:
         return False
     heating = get_value(draft, "heating.kind") or "steam"
     p = f.path
+    if f.group == "vendor":
+        return isinstance(get_value(draft, "vendor"), dict)
     if f.group == "shell":
         return heating == "liquid"
     if p in ("heating.inlet_temperature",):

@@ -109,6 +109,7 @@ def table(result) -> str:
 
 def vendor_table(comparison) -> str:
     """The vendor comparison of one case, beside the summary table."""
+    from .catalogue import vendor_label
     from .vendor import describe, deviation_text
 
     lines = [f"  Vendor figures{f' ({comparison.source})' if comparison.source else ''}:"
@@ -116,9 +117,9 @@ def vendor_table(comparison) -> str:
     for r in comparison.rows:
         _, _, scale, offset, unit = _row_for(r.key or r.figure)
         note = f"  ({r.note})" if r.note else ""
-        lines.append(f"    {r.figure.replace('_', ' '):<24} vendor {_fmt(r.vendor, scale, offset):>10}"
+        lines.append(f"    {vendor_label(r.figure):<28} vendor {_fmt(r.vendor, scale, offset):>10}"
                      f"  Ebullio {_fmt(r.ebullio, scale, offset):>10} {unit:<7}"
-                     f" {deviation_text(r):>14}  {r.verdict}{note}")
+                     f" {deviation_text(r) if r.deviation is not None else '':>14}  {r.verdict}{note}")
     return "\n".join(lines)
 
 

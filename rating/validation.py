@@ -472,8 +472,7 @@ def check_vendor(figures) -> None:
     """The figures of a ``VendorFigures`` (any subset; None = not stated)."""
     from .vendor import VendorTolerances
 
-    if not isinstance(figures.source, str):
-        _fail("source", figures.source, "", "must be text (the proposal's name and revision)")
+    _text("source", figures.source, "name the proposal: vendor, document, revision")
     for name, (unit, rule) in _VENDOR_RULES.items():
         value = getattr(figures, name)
         if value is None:

@@ -70,7 +70,7 @@ class VendorFigures:
     ``heating_flow`` steam or heating-medium flow [kg/s].
     """
 
-    source: str = ""
+    source: str
     duty: float | None = None
     area: float | None = None
     u_clean: float | None = None
@@ -274,11 +274,14 @@ def _overall(rows) -> tuple[str, str | None]:
     return "not comparable", None
 
 
-def describe(comparison: VendorComparison, label=lambda figure: figure.replace("_", " ")) -> str:
+def describe(comparison: VendorComparison, label=None) -> str:
     """The overall verdict in one sentence, naming the deciding row.
 
-    ``label`` turns a figure name into the words a surface shows (the catalogue's label).
+    ``label`` turns a figure name into the words a surface shows (default: the
+    catalogue's label).
     """
+    if label is None:
+        from .catalogue import vendor_label as label
     if comparison.deciding is None:
         return "Not comparable: this case computes none of the figures the vendor states."
     r = comparison.row(comparison.deciding)

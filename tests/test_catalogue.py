@@ -25,9 +25,9 @@ def _paths(cls, prefix=""):
     """Every leaf field path of a case dataclass."""
     out = []
     for f in dataclasses.fields(cls):
-        part = cat.PARTS.get(f.name) if not prefix else None
+        part = cat.PARTS.get(prefix + f.name)
         if part is not None:
-            out += _paths(part, f.name + ".")
+            out += _paths(part, prefix + f.name + ".")
         else:
             out.append(prefix + f.name)
     return out

@@ -166,8 +166,14 @@ def test_no_vendor_no_comparison():
 ])
 def test_bad_vendor_figures_are_refused_naming_the_field(kwargs, field, words):
     with pytest.raises(InputError) as err:
-        VendorFigures(**kwargs)
+        VendorFigures(source="P-1", **kwargs)
     assert err.value.field == field and words in str(err.value)
+
+
+def test_a_proposal_must_be_named():
+    with pytest.raises(InputError) as err:
+        VendorFigures(source=" ", duty=1e6)
+    assert err.value.field == "source"
 
 
 def test_bad_tolerance_is_refused():
@@ -236,7 +242,7 @@ def test_sample_vendor_proposals_json_and_text(capsys):
     assert all("vendor_comparison" in c and c["vendor_comparison"] is None for c in data["cases"])
     code = cli.main([str(VENDOR_SAMPLE), "--increments", "20"])
     out = capsys.readouterr().out
-    assert "Optimistic, decided by u service" in out and "not comparable" in out
+    assert "Optimistic, decided by U service" in out and "not comparable" in out
     assert "qualified engineer" in out
 
 
@@ -249,3 +255,21 @@ def test_report_without_a_writer_is_refused_in_one_line(capsys):
     code = cli.main([str(PENTANE_FILE), "--report", "out.pdf"])
     err = capsys.readouterr().err
     assert code == 2 and len(err.strip().splitlines()) == 1 and "gui" in err
+
+
+def test_catalogue_describes_vendor_figures_and_checks_them_in_a_draft():
+    from rating import catalogue as cat
+
+    assert cat.vendor_label("u_service") == "U service"
+    assert cat.input_field("vendor.tolerances.u_service").default == 15.0
+    draft = cat.case_to_draft(PERFORMANCE)
+    assert not any(p.path.startswith("vendor") for p in cat.draft_problems(draft))
+    assert not cat.applies("vendor.duty", draft)           # no proposal: the group is hidden
+    draft = cat.set_value(draft, "vendor", {"source": "P-1", "duty": -5.0})
+    assert cat.applies("vendor.duty", draft)
+    problems = [p for p in cat.draft_problems(draft) if p.severity == "error"]
+    assert [p.path for p in problems] == ["vendor.duty"] and "> 0" in problems[0].message
+    draft = cat.set_value(draft, "vendor.duty", 1e6)
+    draft = cat.set_value(draft, "vendor.tolerances.duty", 0.0)
+    assert [p.path for p in cat.draft_problems(draft)
+            if p.severity == "error"] == ["vendor.tolerances.duty"]
