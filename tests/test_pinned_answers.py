@@ -56,6 +56,12 @@ PINS = [
      None, 19.5443768, None),
     ("vacuum-reboiler.ebullio", 1, 1203411.34, 0.0472318839, 348.538988, 366.005639,
      None, 52.0088464, None),
+    # The vendor proposals rate the geometries of stripper-reboiler 0 (with a required
+    # duty) and harrow-creek-kettles 1: the same answers.
+    ("vendor-proposals.ebullio", 0, 2296795.91, 0.188786674, 369.356637, 390.061269,
+     None, 37.9367793, None),
+    ("vendor-proposals.ebullio", 1, 1500000.0, 0.6201769, 307.530408, 335.250377,
+     None, None, 26.5019643),
 ]
 
 
