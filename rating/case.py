@@ -43,6 +43,15 @@ FLOW_ARRANGEMENTS = ("counter", "co")
 QUESTIONS = ("performance", "duty_check")
 
 
+def derived_fields(part) -> dict:
+    """Fields of a part that were left empty and filled in when it was built.
+
+    name -> how the value was found (a rule or a published source). The project file
+    keeps such a field empty, so that the input it came from stays the one that decides.
+    """
+    return getattr(part, "_derived", {})
+
+
 @dataclass(frozen=True)
 class Tubes:
     """The tube bundle. ``length`` is the heated length of one tube pass."""
@@ -118,6 +127,14 @@ class BoilingStream:
     Give either ``inlet_temperature`` (subcooled liquid) or ``inlet_quality``
     (saturated, 0 <= x < 1); with neither the inlet is saturated liquid.
 
+    The pressure is given as ``inlet_pressure`` or as the saturation temperature at
+    it, ``inlet_saturation_temperature`` (a column bottom's boiling temperature); the
+    other is derived when the stream is built (see ``derived_fields``).
+
+    ``fluid`` is a property-library name, a near-azeotropic mixture in the library's
+    notation ("Propane[0.95]&n-Butane[0.05]", mole fractions) rated as a pseudo-pure
+    fluid, or a user property table along the saturation line (``rating.fluid_table``).
+
     For a thermosiphon (``Case.type = "thermosiphon"``) the stream is the column's:
     ``inlet_pressure`` is the column vapour-space pressure, ``inlet_temperature``
     the column-base liquid temperature (None: saturated at that pressure), and
@@ -125,12 +142,13 @@ class BoilingStream:
     from the loop's pressure balance (see ``ThermosiphonLoop``).
     """
 
-    fluid: str
+    fluid: object
     mass_flow: float | None
-    inlet_pressure: float
+    inlet_pressure: float | None = None
     inlet_temperature: float | None = None
     inlet_quality: float | None = None
     fouling_resistance: float = 0.0
+    inlet_saturation_temperature: float | None = None
 
     def __post_init__(self):
         from .validation import check_boiling
@@ -144,18 +162,24 @@ class HeatingMedium:
     ``fluid`` is a property-library name, an incompressible solution such as
     ``"INCOMP::MEG-30%"`` or a user table {"T": [...], "cp": [...], "rho": [...],
     "mu": [...], "k": [...]} (SI, T rising) for heating oils.
-    Steam: ``pressure`` is the steam pressure at the inlet (saturated). Liquid:
+    Steam: ``pressure`` is the steam pressure at the inlet (saturated), or give its
+    ``saturation_temperature`` instead and the pressure is derived. Liquid:
     ``pressure`` is its working pressure, ``inlet_temperature`` and ``mass_flow`` are
     required, ``flow_arrangement`` is counter- or co-current with the boiling fluid.
+    ``heat_loss_percent`` of the heating side's duty, or a fixed ``heat_loss`` [W],
+    leaves the heating medium without reaching the process (losses to ambient).
     """
 
     kind: str = "steam"
     fluid: object = "Water"
-    pressure: float = 3e5
+    pressure: float | None = None
     inlet_temperature: float | None = None
     mass_flow: float | None = None
     flow_arrangement: str = "counter"
     fouling_resistance: float = 0.0
+    saturation_temperature: float | None = None
+    heat_loss_percent: float = 0.0
+    heat_loss: float = 0.0
 
     def __post_init__(self):
         from .validation import check_heating
@@ -292,6 +316,40 @@ class ThermosiphonLoop:
 
 KETTLE_TUBE_FORMS = ("u-tube", "straight")
 
+#: Fraction of the kettle shell diameter a bundle usually fills (Wolverine Tube,
+#: Engineering Data Book II, ch. 5, reboiler selection: "bundle about 60 % of the shell").
+KETTLE_BUNDLE_SHARE = 0.6
+#: Margin of the weir over the top of the bundle [m]: the level should just cover the
+#: bundle (common practice; 50 mm, from memory).
+KETTLE_WEIR_MARGIN = 0.05
+
+
+def _port_clearance(bundle_diameter: float) -> float:
+    """Diametral clearance between a U-tube or fixed bundle and its shell [m].
+
+    Sinnott, Coulson & Richardson's Chemical Engineering Vol. 6, Fig. 12.10, the
+    fixed and U-tube line, about 10 mm at a 0.2 m bundle to 20 mm at 1.2 m (read from
+    memory); a line through those two points.
+    """
+    return 0.008 + 0.01 * bundle_diameter
+
+
+#: Kettle dimensions a datasheet may leave out: field -> (rule from the other
+#: dimensions, its source as the rating's warning states it). Applied in this order.
+KETTLE_DEFAULTS = {
+    "port_diameter": (
+        lambda k: k.bundle_diameter + _port_clearance(k.bundle_diameter),
+        "bundle diameter plus the shell-bundle clearance of a U-tube bundle (Sinnott, "
+        "Coulson & Richardson Vol. 6, Fig. 12.10)"),
+    "kettle_diameter": (
+        lambda k: max(k.bundle_diameter / KETTLE_BUNDLE_SHARE, k.port_diameter),
+        "bundle diameter / 0.6: a bundle fills about 60 % of the kettle shell (Wolverine "
+        "Engineering Data Book II, ch. 5)"),
+    "weir_height": (
+        lambda k: 0.5 * (k.port_diameter + k.bundle_diameter) + KETTLE_WEIR_MARGIN,
+        "top of the bundle + 50 mm: the level just covers the bundle (common practice)"),
+}
+
 
 @dataclass(frozen=True)
 class KettleShell:
@@ -340,12 +398,15 @@ class KettleShell:
     ``bundle_max_flux`` the bundle maximum-flux method (family "bundle_chf");
     ``heating_htc`` a fixed tube-side film coefficient on the inside surface
     [W/m^2/K] in place of the in-tube correlation (a book's or a vendor's value).
+
+    A kettle, port or weir dimension left empty takes a default from published
+    practice (``KETTLE_DEFAULTS``) and the rating warns that it did.
     """
 
-    kettle_diameter: float
-    port_diameter: float
-    bundle_diameter: float
-    weir_height: float
+    kettle_diameter: float | None = None
+    port_diameter: float | None = None
+    bundle_diameter: float | None = None  # required (a default only keeps the order)
+    weir_height: float | None = None
     tube_form: str = "u-tube"
     estimate_tube_count: bool = False
     vapour_nozzle_diameter: float | None = None

@@ -304,14 +304,22 @@ INPUTS: tuple[InputField, ...] = tuple([
            hard=INCREMENTS, usual=(20, 1000)),
     # --- boiling side
     _field("boiling.fluid", "Boiling fluid", "text", "boiling",
-           "A pure fluid of the property library (e.g. n-Pentane, Water, R134a)", kind="fluid"),
+           "A pure fluid of the property library (e.g. n-Pentane, Water, R134a), a "
+           "narrow-boiling mixture (Propane[0.95]&n-Butane[0.05], mole fractions) or a user "
+           "saturation table (T, P, h_lv, densities, viscosities, conductivities, heat "
+           "capacities, surface tension; critical pressure and molar mass)", kind="fluid"),
     _field("boiling.mass_flow", "Feed flow", "mass_flow", "boiling",
            "Process flow entering the heated length (not for a thermosiphon, whose flow is "
            "found from the loop's pressure balance)", hard=(0.0, 1e5), usual=(0.005, 500.0),
            hard_open=_OPEN_LO, types=("evaporator", "kettle")),
     _field("boiling.inlet_pressure", "Inlet / column pressure", "pressure", "boiling",
            "Absolute pressure at the tube inlet (thermosiphon: column vapour space; kettle: "
-           "vapour space)", hard=(0.0, 1e8), usual=(2e3, 6e6), hard_open=_OPEN_LO),
+           "vapour space); or give the saturation temperature instead",
+           hard=(0.0, 1e8), usual=(2e3, 6e6), hard_open=_OPEN_LO),
+    _field("boiling.inlet_saturation_temperature", "Inlet / column boiling temperature",
+           "temperature", "boiling",
+           "Saturation temperature at the inlet or column pressure, in place of the pressure "
+           "(which is then derived)", hard=(0.0, 2000.0), usual=_HOT, hard_open=_OPEN_LO),
     _field("boiling.inlet_temperature", "Inlet temperature (subcooled)", "temperature", "boiling",
            "Subcooled feed temperature; empty for saturated liquid or when a quality is given",
            hard=(0.0, 2000.0), usual=_HOT, hard_open=_OPEN_LO),
@@ -330,8 +338,12 @@ INPUTS: tuple[InputField, ...] = tuple([
            "Property-library name, an incompressible solution (INCOMP::MEG-30%) or a user "
            "property table (liquid only)", kind="fluid"),
     _field("heating.pressure", "Heating pressure", "pressure", "heating",
-           "Steam: saturation pressure at the inlet. Liquid: working pressure",
+           "Steam: saturation pressure at the inlet (or give its saturation temperature "
+           "instead). Liquid: working pressure",
            hard=(0.0, 1e8), usual=(1e4, 6e6), hard_open=_OPEN_LO),
+    _field("heating.saturation_temperature", "Steam saturation temperature", "temperature",
+           "heating", "Condensing temperature at the inlet, in place of the pressure (which is "
+           "then derived)", hard=(0.0, 2000.0), usual=_HOT, hard_open=_OPEN_LO),
     _field("heating.inlet_temperature", "Heating inlet temperature", "temperature", "heating",
            "Inlet temperature of a liquid heating medium", hard=(0.0, 2000.0), usual=_HOT,
            hard_open=_OPEN_LO),
@@ -344,6 +356,13 @@ INPUTS: tuple[InputField, ...] = tuple([
     _field("heating.fouling_resistance", "Fouling resistance, heating side", "fouling_resistance",
            "heating", "TEMA-style fouling resistance on the heating surface",
            hard=(0.0, 0.01), usual=(0.0, 0.002), hard_open=(False, True)),
+    _field("heating.heat_loss_percent", "Heat loss, share of the heating duty", "percent",
+           "heating", "Part of the duty the heating side gives up that is lost to ambient "
+           "instead of reaching the process; or give a fixed loss", hard=(0.0, 50.0),
+           usual=(0.0, 10.0)),
+    _field("heating.heat_loss", "Heat loss, fixed", "power", "heating",
+           "Heat the heating side gives up that is lost to ambient; or give a share",
+           hard=(0.0, 1e9), usual=(0.0, 1e6)),
     # --- tubes
     _field("tubes.count", "Number of tubes", "count", "tubes",
            "Tubes in the bundle (kettle U-tubes: tube ends in the tubesheet, two per U-tube)",
@@ -393,17 +412,20 @@ INPUTS: tuple[InputField, ...] = tuple([
            "Pairs of sealing strips (Bell-Delaware bypass correction)", hard=(0, 50),
            usual=(0, 10), types=IN_TUBE),
     # --- kettle shell
-    _field("kettle.kettle_diameter", "Kettle shell inside diameter", "length", "kettle",
-           "Inside diameter of the enlarged shell", hard=(0.0, 10.0), usual=(0.3, 4.0),
-           hard_open=_OPEN_LO, types=("kettle",)),
-    _field("kettle.port_diameter", "Port shell inside diameter", "length", "kettle",
-           "Inside diameter of the port (bundle) shell", hard=(0.0, 10.0), usual=(0.15, 3.0),
-           hard_open=_OPEN_LO, types=("kettle",)),
     _field("kettle.bundle_diameter", "Bundle diameter (outer tube limit)", "length", "kettle",
            "Outer tube limit of the bundle", hard=(0.0, 10.0), usual=(0.1, 3.0),
+           hard_open=_OPEN_LO, types=("kettle",), optional=False),
+    _field("kettle.kettle_diameter", "Kettle shell inside diameter", "length", "kettle",
+           "Inside diameter of the enlarged shell; empty: bundle diameter / 0.6 (Wolverine "
+           "Engineering Data Book II), with a warning", hard=(0.0, 10.0), usual=(0.3, 4.0),
            hard_open=_OPEN_LO, types=("kettle",)),
+    _field("kettle.port_diameter", "Port shell inside diameter", "length", "kettle",
+           "Inside diameter of the port (bundle) shell; empty: bundle diameter plus a U-tube "
+           "bundle's clearance (Sinnott Fig. 12.10), with a warning", hard=(0.0, 10.0),
+           usual=(0.15, 3.0), hard_open=_OPEN_LO, types=("kettle",)),
     _field("kettle.weir_height", "Weir height", "length", "kettle",
-           "Top of the overflow weir above the kettle bottom", hard=(0.0, 10.0),
+           "Top of the overflow weir above the kettle bottom; empty: 50 mm over the bundle "
+           "(common practice), with a warning", hard=(0.0, 10.0),
            usual=(0.1, 3.5), hard_open=_OPEN_LO, types=("kettle",)),
     _field("kettle.tube_form", "Tube form", "choice", "kettle", "U-tubes or straight tubes",
            choices=KETTLE_TUBE_FORMS, types=("kettle",)),
@@ -564,6 +586,8 @@ def applies(field: InputField | str, draft: dict) -> bool:
         return heating == "liquid"
     if p in ("heating.inlet_temperature",):
         return heating == "liquid"
+    if p == "heating.saturation_temperature":
+        return heating == "steam"
     if p == "heating.mass_flow":
         return heating == "liquid" or kind == "kettle"
     if p == "heating.flow_arrangement":
@@ -801,6 +825,18 @@ SUMMARY: dict[str, ResultField] = _results([
      "Largest ratio of a flux to its limit of the same kind"),
     ("dryout_z_m", "Dryout starts at", "length", ALL, "Position along the heated length"),
     # thermosiphon
+    # the inputs as rated: the given value and the one derived from it
+    ("boiling_pressure_Pa", "Inlet / column pressure", "pressure", ALL, "Given or derived"),
+    ("boiling_saturation_temperature_K", "Inlet / column boiling temperature", "temperature",
+     ALL, "Saturation temperature at the inlet or column pressure, given or derived"),
+    ("heating_pressure_Pa", "Steam pressure", "pressure", ALL, "Given or derived"),
+    ("heating_saturation_temperature_K", "Steam saturation temperature", "temperature", ALL,
+     "Given or derived"),
+    ("boiling_range_K", "Boiling range of the mixture", "temperature_difference", ALL,
+     "Dew minus bubble point at the inlet pressure (pseudo-pure mixture)"),
+    ("kettle_diameter_m", "Kettle shell inside diameter", "length", _KT, "Given or defaulted"),
+    ("port_diameter_m", "Port shell inside diameter", "length", _KT, "Given or defaulted"),
+    ("weir_height_m", "Weir height", "length", _KT, "Given or defaulted"),
     ("circulation_kg_s", "Circulation", "mass_flow", _TS, "Flow through the tubes"),
     ("circulation_ratio", "Circulation ratio", "dimensionless", _TS, ""),
     ("vapour_flow_kg_s", "Vapour generated", "mass_flow", _TS, ""),

@@ -123,7 +123,9 @@ def _encode(value, hint, path: str):
     """JSON-ready data of a field value; floats where the field is a float."""
     if dataclasses.is_dataclass(value) and not isinstance(value, type):
         hints = _hints(type(value))
-        return {f.name: _encode(getattr(value, f.name), hints[f.name], _join(path, f.name))
+        derived = getattr(value, "_derived", {})  # filled in when built: the file keeps it empty
+        return {f.name: None if f.name in derived else
+                _encode(getattr(value, f.name), hints[f.name], _join(path, f.name))
                 for f in dataclasses.fields(value)}
     if value is None or isinstance(value, (str, bool)):
         return value

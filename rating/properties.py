@@ -904,7 +904,9 @@ def make_fluid(spec) -> Fluid | IncompressibleLiquid | TableLiquid:
     a CoolProp pure/pseudo-pure name or alias (case-insensitive, optional
     "HEOS::") -> Fluid; an incompressible code ("MEG-30%", "TVP1") ->
     IncompressibleLiquid. A dict ``{"table": {"T": [...], "cp": [...], "rho":
-    [...], "mu": [...], "k": [...]}, "name": "..."}`` -> TableLiquid.
+    [...], "mu": [...], "k": [...]}, "name": "..."}`` -> TableLiquid. A boiling
+    fluid's saturation table (a dict with "h_lv", see ``rating.fluid_table``) ->
+    SaturationTable; a mixture "A[0.95]&B[0.05]" -> a pseudo-pure SaturationTable.
 
     CoolProp-backed objects are cached per name in a thread-local dict: repeated
     calls in one thread return the same object, another thread gets its own
@@ -925,6 +927,10 @@ def make_fluid(spec) -> Fluid | IncompressibleLiquid | TableLiquid:
     UnknownFluidError
         The name is not known; the message suggests close names.
     """
+    from . import fluid_table  # boiling fluids given as a saturation table or a mixture
+
+    if fluid_table.is_saturation_table(spec):
+        return fluid_table.SaturationTable(spec)
     if isinstance(spec, dict):
         if "table" not in spec:
             raise InputError("a fluid given as a dict needs a 'table' entry", field="fluid")
@@ -941,7 +947,8 @@ def make_fluid(spec) -> Fluid | IncompressibleLiquid | TableLiquid:
         cache = _local.fluids = {}
     fluid = cache.get(spec)
     if fluid is None:
-        fluid = cache[spec] = _build(spec)
+        fluid = cache[spec] = (fluid_table.pseudo_pure(spec) if fluid_table.is_mixture(spec)
+                               else _build(spec))
     return fluid
 
 

@@ -29,6 +29,7 @@ BAFFLE_CUT = (0.15, 0.45)      # fraction of the shell inner diameter, common pr
 MAX_FOULING = 0.01             # [m^2*K/W]; heavy-fouling TEMA values are below 0.002
 INCREMENTS = (10, 5000)
 TABLE_KEYS = ("T", "cp", "rho", "mu", "k")  # user property table of a heating liquid
+MAX_HEAT_LOSS_PERCENT = 50.0   # [%]; a unit that loses more is not rated as a heat exchanger
 
 FOULING_UNIT = "m^2*K/W"
 
@@ -179,11 +180,53 @@ def check_shell(shell) -> None:
     _whole("sealing_strip_pairs", shell.sealing_strip_pairs, 0)
 
 
+def _derive(part, name: str, value, how: str) -> None:
+    """Fill a field left empty with a value found from the others (``derived_fields``)."""
+    object.__setattr__(part, name, value)
+    object.__setattr__(part, "_derived", {**getattr(part, "_derived", {}), name: how})
+
+
+def _pressure_or_saturation(part, p_name: str, t_name: str, fluid_spec, role: str) -> None:
+    """One of a pressure and its saturation temperature given; the other derived.
+
+    A pressure given beside the temperature must be the temperature's own (a part
+    copied with both); anything else is refused, since the two would disagree.
+    """
+    P, T = getattr(part, p_name), getattr(part, t_name)
+    if T is None:
+        if P is None:
+            _fail(p_name, None, "", f"give {p_name} [Pa] or {t_name} [K] ({role})")
+        _positive(p_name, P, "Pa")
+        return
+    _positive(t_name, T, "K")
+    from .properties import make_fluid
+
+    try:
+        fluid = make_fluid(fluid_spec)
+        if not callable(getattr(fluid, "P_sat", None)):
+            _fail(t_name, T, "K", f"{fluid_spec!r} has no saturation curve: give {p_name} [Pa]")
+        P_T = float(fluid.P_sat(T))
+    except PropertyError as exc:
+        _fail(t_name, T, "K", str(exc))
+    if P is not None:
+        _positive(p_name, P, "Pa")
+        if abs(P - P_T) > 1e-6 * P_T:
+            _fail(p_name, P, "Pa", f"give {p_name} or {t_name}, not both: {fluid.name} "
+                  f"saturates at {T:.6g} K under {P_T:.6g} Pa")
+    _derive(part, p_name, P_T, f"saturation pressure of {fluid.name} at {T:.6g} K")
+
+
 def check_boiling(stream) -> None:
-    """Fluid name, flow, inlet state and fouling of a ``BoilingStream``."""
-    _text("fluid", stream.fluid, "a fluid name")
+    """Fluid, flow, inlet state and fouling of a ``BoilingStream``."""
+    from .fluid_table import check_table, is_saturation_table
+
+    if is_saturation_table(stream.fluid):
+        check_table(stream.fluid)
+    else:
+        _text("fluid", stream.fluid, "a fluid name")
     _optional(_positive, "mass_flow", stream.mass_flow, "kg/s")  # required by type: check_case
-    _positive("inlet_pressure", stream.inlet_pressure, "Pa")
+    _pressure_or_saturation(stream, "inlet_pressure", "inlet_saturation_temperature",
+                            stream.fluid, "the pressure at the inlet, or the column's")
     _optional(_positive, "inlet_temperature", stream.inlet_temperature, "K")
     _optional(_between, "inlet_quality", stream.inlet_quality, "", 0.0, 1.0, hi_closed=False)
     if stream.inlet_temperature is not None and stream.inlet_quality is not None:
@@ -217,7 +260,22 @@ def check_heating(medium) -> None:
         _check_table("fluid", medium.fluid)
     else:
         _text("fluid", medium.fluid, "a fluid name" + (" or a property table" if kind == "liquid" else ""))
-    _positive("pressure", medium.pressure, "Pa")
+    if kind == "steam":
+        _pressure_or_saturation(medium, "pressure", "saturation_temperature", medium.fluid,
+                                "the condensing pressure")
+    else:
+        if medium.saturation_temperature is not None:
+            _fail("saturation_temperature", medium.saturation_temperature, "K",
+                  "only for a condensing heating medium; a liquid needs its pressure [Pa]")
+        if medium.pressure is None:
+            _fail("pressure", None, "", "a liquid heating medium needs its working pressure [Pa]")
+        _positive("pressure", medium.pressure, "Pa")
+    _between("heat_loss_percent", medium.heat_loss_percent, "%", 0.0, MAX_HEAT_LOSS_PERCENT,
+             note="share of the heating side's duty lost to ambient")
+    _non_negative("heat_loss", medium.heat_loss, "W")
+    if medium.heat_loss_percent and medium.heat_loss:
+        _fail("heat_loss", medium.heat_loss, "W", "give heat_loss_percent or a fixed heat_loss, "
+              "not both")
     _optional(_positive, "inlet_temperature", medium.inlet_temperature, "K")
     _optional(_positive, "mass_flow", medium.mass_flow, "kg/s")
     if kind == "liquid":
@@ -376,9 +434,16 @@ def check_kettle(kettle) -> None:
     """Diameters, weir, nozzles and bundle-boiling options of a ``KettleShell``."""
     from .case import KETTLE_TUBE_FORMS
 
+    from .case import KETTLE_DEFAULTS
+
+    if kettle.bundle_diameter is None:
+        _fail("bundle_diameter", None, "", "required: the outer tube limit of the bundle [m]")
+    d_b = _positive("bundle_diameter", kettle.bundle_diameter, "m")
+    for name, (rule, source) in KETTLE_DEFAULTS.items():
+        if getattr(kettle, name) is None:
+            _derive(kettle, name, rule(kettle), source)
     d_k = _positive("kettle_diameter", kettle.kettle_diameter, "m")
     d_p = _positive("port_diameter", kettle.port_diameter, "m")
-    d_b = _positive("bundle_diameter", kettle.bundle_diameter, "m")
     if d_p > d_k:
         _fail("port_diameter", d_p, "m", f"must be <= kettle_diameter ({d_k:g} m): the port "
               "shell opens into the larger kettle shell")
