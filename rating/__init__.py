@@ -41,8 +41,9 @@ def rate(case, *, increments=None, progress=None, cancel=None) -> Result:
     before any rating starts (they are found when the case is built).
     """
     from .exchangers import rate_case
-    from .derived import with_inputs_shown
-    result = rate_case(case, increments=increments, progress=progress, cancel=cancel)
+    from .derived import rate_with_heat_loss, with_inputs_shown
+    result = rate_with_heat_loss(case, rate_case, increments=increments, progress=progress,
+                                 cancel=cancel)
     return _with_plausibility(case, with_inputs_shown(case, result))
 
 

@@ -832,6 +832,8 @@ SUMMARY: dict[str, ResultField] = _results([
     ("heating_pressure_Pa", "Steam pressure", "pressure", ALL, "Given or derived"),
     ("heating_saturation_temperature_K", "Steam saturation temperature", "temperature", ALL,
      "Given or derived"),
+    ("heat_loss_W", "Heat loss", "power", ALL,
+     "Heat the heating side gives up that the process does not receive"),
     ("boiling_range_K", "Boiling range of the mixture", "temperature_difference", ALL,
      "Dew minus bubble point at the inlet pressure (pseudo-pure mixture)"),
     ("kettle_diameter_m", "Kettle shell inside diameter", "length", _KT, "Given or defaulted"),

@@ -6,6 +6,11 @@
   naming its source.
 * A mixture rated as a pseudo-pure fluid: a warning with its boiling range; a user
   saturation table: a note naming it and its range.
+* A heat loss: the heating side gives up the process duty plus the loss. Condensing
+  steam stays at its temperature, so only the steam condensed grows; a liquid medium
+  cools by the larger duty along the march (``LiquidHeating.loss_share``). A fixed
+  loss on a liquid is found as the share it is of the heating duty, by rating again
+  until that share settles.
 """
 from __future__ import annotations
 
@@ -72,6 +77,47 @@ def inputs_shown(case) -> tuple[dict, list[RatingWarning]]:
             f"({fluid.T_min:.5g} to {fluid.T_max:.5g} K); methods that need fluid-specific "
             "constants (look-up tables, reference coefficients) have none for it"))
     return summary, warnings
+
+
+#: Settling of the share of a fixed heat loss on a liquid medium, and the ratings allowed.
+LOSS_SHARE_TOLERANCE = 1e-5
+LOSS_RATINGS = 6
+
+
+def rate_with_heat_loss(case, rate_case, **options):
+    """Rate a case, its heating side giving up the heat loss on top of the process duty."""
+    hm = case.heating
+    if hm.kind == "steam" or not hm.heat_loss:
+        return _heat_loss_shown(case, rate_case(case, **options))
+    share = 0.0
+    for _ in range(LOSS_RATINGS):
+        trial = dataclasses.replace(case, heating=dataclasses.replace(
+            hm, heat_loss=0.0, heat_loss_percent=100.0 * share))
+        result = rate_case(trial, **options)
+        duty = result.summary.get("duty_W")
+        if result.status == "failed" or duty is None:
+            break
+        settled = hm.heat_loss / (duty + hm.heat_loss)
+        if abs(settled - share) < LOSS_SHARE_TOLERANCE:
+            break
+        share = settled
+    return _heat_loss_shown(case, dataclasses.replace(result, name=case.name))
+
+
+def _heat_loss_shown(case, result):
+    hm = case.heating
+    duty = result.summary.get("duty_W")
+    if not (hm.heat_loss or hm.heat_loss_percent) or duty is None:
+        return result
+    loss = hm.heat_loss or duty * hm.heat_loss_percent / (100.0 - hm.heat_loss_percent)
+    summary = dict(result.summary, heat_loss_W=loss)
+    if hm.kind == "steam" and summary.get("duty_heating_side_W"):
+        # the steam stays at its temperature: the loss only condenses more of it
+        grow = (duty + loss) / duty
+        summary["duty_heating_side_W"] *= grow
+        if summary.get("steam_flow_kg_s") is not None:
+            summary["steam_flow_kg_s"] *= grow
+    return dataclasses.replace(result, summary=summary)
 
 
 def with_inputs_shown(case, result):

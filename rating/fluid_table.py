@@ -310,8 +310,14 @@ def pseudo_pure(spec: str) -> PseudoPureMixture:
     try:
         state = CoolProp.AbstractState("HEOS", "&".join(c.coolprop_name for c in components))
         state.set_mole_fractions(list(x))
-        P_crit = min(p.p for p in state.all_critical_points()) if len(names) > 1 else \
-            components[0].P_crit
+        points = [p.p for p in state.all_critical_points() if p.stable and p.p > 0.0]
+    except ValueError as exc:
+        raise PropertyError(f"{spec}: the property library has no mixture model for these "
+                            f"components ({exc})", fluid=spec) from None
+    # the stable critical point; else Kay's rule, the mole-fraction mean of the components'
+    P_crit = min(points) if points else sum(xi * c.P_crit for xi, c in zip(x, components))
+    try:
+        state.update(CP.PQ_INPUTS, 0.5 * P_crit, 0.0)  # the model reaches the saturation line
     except ValueError as exc:
         raise PropertyError(f"{spec}: the property library has no mixture model for these "
                             f"components ({exc})", fluid=spec) from None
@@ -332,6 +338,9 @@ def pseudo_pure(spec: str) -> PseudoPureMixture:
             sigma = sum(xi * c.saturation_at(T).sigma for xi, c in zip(x, components))
         except (ValueError, PropertyError):
             continue  # a point the mixture model cannot reach: the table skips it
+        if not all(_positive_number(v) for v in (*liquid[:1], *liquid[2:], *vapour, sigma,
+                                                   vapour[1] - liquid[1])):
+            continue  # a property the model leaves undefined here
         if rows["T"] and (T <= rows["T"][-1] or P <= rows["P"][-1]):
             continue
         for key, v in zip(("T", "P", "rho_l", "cp_l", "mu_l", "k_l", "rho_v", "cp_v", "mu_v",

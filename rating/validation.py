@@ -589,6 +589,12 @@ def check_case(case) -> None:
         _check_thermosiphon_case(case)
     if case.type == "kettle":
         _check_kettle_case(case)
+        if case.heating.kind == "liquid" and (case.heating.heat_loss
+                                              or case.heating.heat_loss_percent):
+            _fail("heating.heat_loss_percent" if case.heating.heat_loss_percent else
+                  "heating.heat_loss", case.heating.heat_loss_percent or case.heating.heat_loss,
+                  "", "a heat loss of a liquid in a kettle's tubes is not modelled (its tubes "
+                  "lose heat only to the pool): leave it at 0")
     elif case.kettle is not None:
         _fail("kettle", case.kettle, "", "only for type = 'kettle'")
     if case.heating.kind == "liquid" and case.shell is None and case.type != "kettle":

@@ -147,3 +147,203 @@ def test_kettle_without_bundle_diameter_is_refused():
     with pytest.raises(InputError) as info:
         KettleShell(kettle_diameter=1.0)
     assert info.value.field == "bundle_diameter"
+
+
+# --------------------------------------------------------------- item 5: heat loss
+
+def with_heating(case, **changes):
+    draft = cat.case_to_draft(case)
+    for key, value in changes.items():
+        draft = cat.set_value(draft, f"heating.{key}", value)
+    return cat.draft_to_case(draft)
+
+
+def test_a_heat_loss_on_steam_condenses_more_steam_for_the_same_process_duty():
+    base = sample("pentane-vaporiser.ebullio")
+    plain, lossy = rating.rate(base), rating.rate(with_heating(base, heat_loss_percent=5.0))
+    Q = plain.summary["duty_W"]
+    assert lossy.summary["duty_W"] == pytest.approx(Q, rel=1e-9)
+    assert lossy.summary["duty_heating_side_W"] == pytest.approx(Q / 0.95, rel=1e-9)
+    assert lossy.summary["heat_loss_W"] == pytest.approx(Q * 5 / 95, rel=1e-9)
+    # the steam condensed carries the heating duty at the latent heat of CoolProp's water
+    P = base.heating.pressure
+    h_lv = CP.PropsSI("H", "P", P, "Q", 1, "Water") - CP.PropsSI("H", "P", P, "Q", 0, "Water")
+    assert lossy.summary["steam_flow_kg_s"] == pytest.approx(Q / 0.95 / h_lv, rel=1e-6)
+    fixed = rating.rate(with_heating(base, heat_loss=20e3))
+    assert fixed.summary["duty_heating_side_W"] == pytest.approx(Q + 20e3, rel=1e-9)
+
+
+@pytest.fixture(scope="module")
+def oil():
+    """The hot-oil vaporiser (a user table oil, counter-current), as given and with losses."""
+    base = sample("hot-oil-vaporiser.ebullio")
+    plain = rating.rate(base)
+    share = rating.rate(with_heating(base, heat_loss_percent=8.0))
+    return base, plain, share
+
+
+def test_a_heat_loss_on_a_liquid_cools_the_medium_by_the_larger_duty(oil):
+    base, plain, lossy = oil
+    s = lossy.summary
+    assert lossy.status != "failed", lossy.message
+    # the energy balance of the two sides: the medium gives up duty / (1 - 0.08)
+    assert s["duty_heating_side_W"] == pytest.approx(s["duty_W"] / 0.92, rel=2e-3)
+    assert s["heating_outlet_temperature_K"] < plain.summary["heating_outlet_temperature_K"]
+    assert s["duty_W"] < plain.summary["duty_W"]
+
+
+def test_a_fixed_loss_on_a_liquid_equals_the_share_it_amounts_to(oil):
+    base, _plain, lossy = oil
+    loss = lossy.summary["duty_W"] * 8.0 / 92.0
+    fixed = rating.rate(with_heating(base, heat_loss=loss))
+    assert fixed.summary["duty_W"] == pytest.approx(lossy.summary["duty_W"], rel=1e-4)
+    assert fixed.summary["heat_loss_W"] == loss
+
+
+def test_heat_loss_refusals_name_the_field():
+    with pytest.raises(InputError) as info:
+        HeatingMedium(kind="steam", pressure=3e5, heat_loss_percent=60.0)
+    assert info.value.field == "heat_loss_percent" and "<= 50" in str(info.value)
+    with pytest.raises(InputError) as info:
+        HeatingMedium(kind="steam", pressure=3e5, heat_loss_percent=5.0, heat_loss=1e3)
+    assert info.value.field == "heat_loss" and "not both" in str(info.value)
+
+
+# --------------------------------------------------------------- item 7: property tables
+
+#: Saturated water, Incropera & DeWitt, Fundamentals of Heat and Mass Transfer, Table A.6
+#: (rows 360 to 420 K, typed from memory; the vapour's transport columns of that table
+#: sit 1-6 % from IAPWS): T [K], P [bar], v_f [1e-3 m^3/kg], v_g [m^3/kg], h_fg [kJ/kg],
+#: cp_f, cp_g [kJ/kg/K], mu_f, mu_g [1e-6 Pa s], k_f, k_g [1e-3 W/m/K], sigma [1e-3 N/m].
+INCROPERA_A6 = [
+    (360.0, 0.6209, 1.033, 2.645, 2293, 4.203, 1.925, 324, 11.09, 674, 23.3, 60.0),
+    (373.15, 1.0133, 1.044, 1.679, 2257, 4.217, 2.029, 279, 12.02, 680, 24.8, 58.9),
+    (380.0, 1.2869, 1.049, 1.330, 2239, 4.226, 2.057, 260, 12.09, 683, 24.9, 57.6),
+    (390.0, 1.794, 1.058, 0.980, 2212, 4.239, 2.104, 237, 12.42, 686, 25.8, 55.6),
+    (400.0, 2.455, 1.067, 0.731, 2183, 4.256, 2.158, 217, 12.69, 688, 26.8, 53.6),
+    (410.0, 3.302, 1.077, 0.553, 2153, 4.278, 2.221, 200, 12.99, 688, 27.2, 51.5),
+    (420.0, 4.370, 1.088, 0.425, 2123, 4.302, 2.291, 185, 13.05, 688, 28.2, 49.4),
+]
+
+
+def water_table():
+    rows = list(zip(*INCROPERA_A6))
+    return {
+        "name": "water, Incropera Table A.6", "critical_pressure": 22.064e6,  # IAPWS
+        "molar_mass": 18.015,
+        "T": list(rows[0]), "P": [p * 1e5 for p in rows[1]],
+        "rho_l": [1e3 / v for v in rows[2]], "rho_v": [1.0 / v for v in rows[3]],
+        "h_lv": [h * 1e3 for h in rows[4]], "cp_l": [c * 1e3 for c in rows[5]],
+        "cp_v": [c * 1e3 for c in rows[6]], "mu_l": [m * 1e-6 for m in rows[7]],
+        "mu_v": [m * 1e-6 for m in rows[8]], "k_l": [k * 1e-3 for k in rows[9]],
+        "k_v": [k * 1e-3 for k in rows[10]], "sigma": [s * 1e-3 for s in rows[11]],
+    }
+
+
+def test_a_saturation_table_interpolates_to_iapws_water_between_its_rows():
+    from rating.properties import make_fluid
+
+    fluid = make_fluid(water_table())
+    P = 2.0e5  # between the 390 and 400 K rows
+    sat = fluid.saturation(P)
+
+    def ref(key, q):
+        return CP.PropsSI(key, "P", P, "Q", q, "Water")
+
+    assert sat.T_sat == pytest.approx(ref("T", 0), abs=0.1)
+    assert sat.h_lv == pytest.approx(ref("H", 1) - ref("H", 0), rel=0.005)
+    assert sat.rho_l == pytest.approx(ref("D", 0), rel=0.003)
+    assert sat.rho_v == pytest.approx(ref("D", 1), rel=0.01)
+    assert sat.mu_l == pytest.approx(ref("V", 0), rel=0.02)
+    assert sat.k_l == pytest.approx(ref("L", 0), rel=0.015)
+    assert sat.sigma == pytest.approx(ref("I", 0), rel=0.01)
+    # Clapeyron's slope from the table's own columns against CoolProp's
+    assert sat.dPdT_sat == pytest.approx(CP.PropsSI("d(P)/d(T)|sigma", "P", P, "Q", 0, "Water"),
+                                         rel=0.01)
+    # a subcooled liquid 10 K below saturation: the table's liquid at its temperature
+    T = sat.T_sat - 10.0
+    assert fluid.at_ph(P, fluid.enthalpy(P, T)).T == pytest.approx(T, abs=1e-9)
+
+
+def water_evaporator(fluid):
+    from rating.case import Case, Methods, Tubes
+
+    # One dryout method for both: the 2006 look-up table is for water by name only.
+    return Case(
+        name="water evaporator", tubes=Tubes(count=20, length=3.0, outer_diameter=0.0254, bwg=14),
+        boiling=BoilingStream(fluid, 0.25, 2.0e5, inlet_temperature=385.0),
+        heating=HeatingMedium(kind="steam", pressure=4.5e5),
+        methods=Methods(tube_dryout="katto_ohno_local"))
+
+
+def test_a_case_on_the_table_rates_like_the_same_case_on_iapws_water():
+    table, library = rating.rate(water_evaporator(water_table())), \
+        rating.rate(water_evaporator("Water"))
+    assert table.status != "failed", table.message
+    print(f"\nwater from Incropera A.6 against IAPWS: duty {table.summary['duty_W']:.6g} W "
+          f"against {library.summary['duty_W']:.6g} W, exit quality "
+          f"{table.summary['exit_quality']:.4f} against {library.summary['exit_quality']:.4f}")
+    assert table.summary["duty_W"] == pytest.approx(library.summary["duty_W"], rel=0.01)
+    assert table.summary["exit_quality"] == pytest.approx(library.summary["exit_quality"],
+                                                          rel=0.01)
+    assert "user-property-table" in codes(table)
+
+
+def test_a_saturation_table_survives_the_project_file():
+    case = water_evaporator(water_table())
+    again = from_dict(json.loads(json.dumps(to_dict(case))), type(case))
+    assert again.boiling.fluid == case.boiling.fluid
+
+
+@pytest.mark.parametrize("change, field, words", [
+    (lambda t: t.pop("sigma"), "fluid.sigma", ["missing"]),
+    (lambda t: t["P"].reverse(), "fluid.P", ["rise strictly"]),
+    (lambda t: t["rho_v"].__setitem__(0, 2000.0), "fluid.rho_v", ["below the liquid density"]),
+    (lambda t: t["h_lv"].append(1.0), "fluid.h_lv", ["as many as fluid.T"]),
+])
+def test_a_faulty_table_is_refused_naming_the_column(change, field, words):
+    table = water_table()
+    change(table)
+    with pytest.raises(InputError) as info:
+        BoilingStream(table, 1.0, 2e5)
+    assert info.value.field == field
+    for w in words:
+        assert w in str(info.value), str(info.value)
+
+
+def test_a_pressure_outside_the_table_is_refused_naming_the_range():
+    with pytest.raises(InputError) as info:
+        water_evaporator(water_table()).__class__(**{
+            **{f.name: getattr(water_evaporator(water_table()), f.name)
+               for f in dataclasses.fields(water_evaporator(water_table()))},
+            "boiling": BoilingStream(water_table(), 0.25, 8e5)})
+    assert info.value.field == "boiling.inlet_pressure"
+    assert "outside the table" in str(info.value)
+
+
+MIXTURE = "Propane[0.95]&n-Butane[0.05]"
+
+
+def test_a_narrow_boiling_mixture_boils_at_coolprops_bubble_point():
+    from rating.properties import make_fluid
+
+    fluid, P = make_fluid(MIXTURE), 12e5
+    ref = "HEOS::" + MIXTURE
+    bubble = CP.PropsSI("T", "P", P, "Q", 0, ref)
+    dew = CP.PropsSI("T", "P", P, "Q", 1, ref)
+    assert fluid.T_sat(P) == pytest.approx(bubble, abs=0.05)
+    assert fluid.boiling_range(P) == pytest.approx(dew - bubble, abs=0.05)
+    sat = fluid.saturation(P)
+    assert sat.h_lv == pytest.approx(CP.PropsSI("H", "P", P, "Q", 1, ref)
+                                     - CP.PropsSI("H", "P", P, "Q", 0, ref), rel=0.01)
+
+
+def test_a_mixture_rating_warns_about_its_boiling_range():
+    base = sample("pentane-vaporiser.ebullio")
+    draft = cat.set_value(cat.case_to_draft(base), "boiling.fluid", MIXTURE)
+    draft = cat.set_value(draft, "boiling.inlet_temperature", None)
+    r = rating.rate(cat.draft_to_case(draft))
+    assert r.status != "failed", r.message
+    warned = [w for w in r.warnings if w.code == "mixture-as-pure-fluid"]
+    assert warned and "boiling range" in warned[0].message
+    assert r.summary["boiling_range_K"] > 0.5

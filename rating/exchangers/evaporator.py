@@ -147,6 +147,7 @@ def heating_side(case):
                          counter_current=hm.flow_arrangement == "counter",
                          shell_geometry=shell_geometry(case), method=case.methods.shell_side,
                          temperature_range=T_range)
+    side.loss_share = hm.heat_loss_percent / 100.0
     return side, fluid.enthalpy(hm.pressure, hm.inlet_temperature)
 
 
@@ -262,7 +263,7 @@ def _duty_check(case, heating, hs_inlet, march):
     if hs_inlet is None or case.heating.flow_arrangement == "co":
         return march(hs_inlet, stop_duty=Q, share=(0.5, 0.5))
     # Counter-current: the heating outlet (at z = 0) follows from the duty balance.
-    h_out = hs_inlet - Q / heating.mass_flow
+    h_out = heating.advance(hs_inlet, -Q)  # counter-current: the inlet back to the outlet
     try:
         heating.temperature(h_out)
     except PropertyError as exc:  # the duty would cool the medium out of its range

@@ -98,6 +98,8 @@ class LiquidHeating(HeatingSide):
 
     #: Node spacing of the temperature-enthalpy table [K].
     TABLE_STEP = 2.0
+    #: Share of the duty the medium gives up that is lost to ambient (heat loss).
+    loss_share = 0.0
 
     def __init__(self, fluid, pressure, mass_flow, *, counter_current, shell_geometry,
                  method="bell_delaware", temperature_range=None):
@@ -167,7 +169,8 @@ class LiquidHeating(HeatingSide):
         return self._htc(T_h)
 
     def advance(self, h, duty):
-        return h - self.sign * duty / self.mass_flow
+        # the process receives ``duty``; the medium gives up duty / (1 - loss share)
+        return h - self.sign * duty / (self.mass_flow * (1.0 - self.loss_share))
 
     def capacity_rate(self, h):
         table = self._table
