@@ -1,0 +1,226 @@
+"""Rating many cases through any ``concurrent.futures.Executor``.
+
+Every study (sweep, method spread, envelope, fit) hands its cases to ``rate_points``.
+The caller may pass an executor: a ``ProcessPoolExecutor``, a thread pool, the
+``InlineExecutor`` below (one after the other, in this process), or a Dask
+distributed client's ``client.get_executor()``; with none, a process pool on all
+cores is made for the run and shut down after it. Results come back in input
+order whatever order the workers finish in; a point that cannot be built, fails
+or raises keeps its place with its reason; a cancel stops the points still queued.
+"""
+from __future__ import annotations
+
+import concurrent.futures as cf
+import contextlib
+import multiprocessing
+import os
+import threading
+from dataclasses import dataclass
+
+from ..errors import InputError
+from ..results import Result, failed
+
+#: Status of a point that was never rated: its inputs were refused, or the run
+#: was cancelled before its turn.
+REFUSED, CANCELLED = "refused", "cancelled"
+
+
+@dataclass(frozen=True)
+class Point:
+    """One rated (or refused, or cancelled) point of a study.
+
+    ``inputs`` maps what was set (a field path, or "method") to its value;
+    ``status`` is the rating's ("ok", "warnings", "failed") or "refused" /
+    "cancelled"; ``message`` says why when it is not rated.
+    """
+
+    inputs: dict
+    status: str
+    message: str
+    result: Result | None = None
+    index: int = 0
+
+    @property
+    def rated(self) -> bool:
+        return self.status in ("ok", "warnings")
+
+    def value(self, key: str):
+        """A summary value, or None when it was not computed."""
+        if self.result is None:
+            return None
+        return self.result.summary.get(key)
+
+    def warning_codes(self) -> set[str]:
+        return set() if self.result is None else {w.code for w in self.result.warnings}
+
+    def to_dict(self, keys=None) -> dict:
+        summary = {} if self.result is None else self.result.to_dict()["summary"]
+        if keys is not None:
+            summary = {k: summary.get(k) for k in keys}
+        return {"inputs": dict(self.inputs), "status": self.status, "message": self.message,
+                "summary": summary,
+                "warnings": [] if self.result is None
+                else [w.to_dict() for w in self.result.warnings]}
+
+
+@dataclass(frozen=True)
+class Job:
+    """A point to rate: what was set, and the case built from it (or why it was refused)."""
+
+    inputs: dict
+    case: object = None
+    refused: str = ""
+
+    @classmethod
+    def build(cls, inputs: dict, make):
+        """The job for ``make()``; an input error becomes the point's reason."""
+        try:
+            return cls(inputs, make())
+        except (InputError, KeyError, ValueError) as exc:
+            return cls(inputs, None, _first_line(exc))
+
+
+def _first_line(exc) -> str:
+    text = str(exc.args[0]) if isinstance(exc, KeyError) and exc.args else str(exc)
+    return text.splitlines()[0] if text else type(exc).__name__
+
+
+def rate_one(case, increments=None) -> Result:
+    """Rate one case in a worker; whatever goes wrong becomes the result's reason."""
+    from .. import rate
+
+    try:
+        return rate(case, increments=increments)
+    except Exception as exc:  # noqa: BLE001 - one point's failure must not end the study
+        return failed(case, f"{type(exc).__name__}: {_first_line(exc)}")
+
+
+class InlineExecutor(cf.Executor):
+    """Runs each call at submission, in the calling thread: serial runs and tests."""
+
+    def submit(self, fn, /, *args, **kwargs):
+        future = cf.Future()
+        try:
+            future.set_result(fn(*args, **kwargs))
+        except BaseException as exc:  # noqa: BLE001 - handed to the future like any pool
+            future.set_exception(exc)
+        return future
+
+
+def _preload() -> None:
+    """Load the engine and the property library before forking, so that workers share it."""
+    from .. import exchangers, properties  # noqa: F401
+    from ..correlations import registry  # noqa: F401
+    import CoolProp.CoolProp  # noqa: F401
+
+
+def default_executor(workers: int | None = None) -> cf.Executor:
+    """A process pool on ``workers`` cores (all by default).
+
+    Workers fork from this process when it runs no other thread (the children
+    inherit the loaded property library: no start-up cost); a process with threads
+    (a GUI) gets a fork server instead, which loads the engine once itself.
+    """
+    workers = workers or os.cpu_count() or 1
+    methods = multiprocessing.get_all_start_methods()
+    if "fork" in methods and threading.active_count() == 1:
+        _preload()
+        context = multiprocessing.get_context("fork")
+    elif "forkserver" in methods:
+        context = multiprocessing.get_context("forkserver")
+        context.set_forkserver_preload(["rating.studies.execution", "rating.exchangers",
+                                        "rating.properties", "CoolProp.CoolProp"])
+    else:
+        context = multiprocessing.get_context("spawn")
+    return cf.ProcessPoolExecutor(max_workers=workers, mp_context=context)
+
+
+@contextlib.contextmanager
+def executor_scope(executor: cf.Executor | None):
+    """The caller's executor, or a default pool made here and shut down after."""
+    if executor is not None:
+        yield executor
+        return
+    own = default_executor()
+    try:
+        yield own
+    finally:
+        own.shutdown(wait=True, cancel_futures=True)
+
+
+def rate_points(jobs, *, executor: cf.Executor | None = None, increments=None,
+                progress=None, cancel=None) -> list[Point]:
+    """Rate every job's case; one ``Point`` per job, in the jobs' order.
+
+    ``progress(done, total)`` is called in this thread as points finish;
+    ``cancel()`` is polled while waiting, and when it returns True the points not
+    yet started are cancelled and come back with status "cancelled" (points already
+    running are waited for: a worker process cannot be interrupted safely).
+    """
+    jobs = list(jobs)
+    total = len(jobs)
+    points: list[Point | None] = [None] * total
+    done = 0
+
+    def report():
+        if progress is not None:
+            progress(done, total)
+
+    for i, job in enumerate(jobs):
+        if job.case is None:
+            points[i] = Point(job.inputs, REFUSED, job.refused, None, i)
+            done += 1
+    report()
+    todo = [i for i, p in enumerate(points) if p is None]
+    if todo:
+        with executor_scope(executor) as pool:
+            pending: dict[cf.Future, int] = {}
+            stopped = False
+
+            def collect(finished):
+                nonlocal done
+                for f in finished:
+                    i = pending.pop(f)
+                    points[i] = _point(jobs[i], f, i)
+                    done += 1
+                if finished:
+                    report()
+
+            for i in todo:
+                if cancel is not None and cancel():
+                    stopped = True
+                    break
+                future = pool.submit(rate_one, jobs[i].case, increments)
+                pending[future] = i
+                if future.done():          # an executor that runs at submission
+                    collect([future])
+            while pending:
+                if not stopped and cancel is not None and cancel():
+                    stopped = True
+                if stopped:
+                    for f in pending:
+                        f.cancel()
+                finished, _ = cf.wait(list(pending), timeout=0.2,
+                                      return_when=cf.FIRST_COMPLETED)
+                collect(finished)
+    for i, p in enumerate(points):
+        if p is None:
+            points[i] = Point(jobs[i].inputs, CANCELLED, "cancelled before it was rated",
+                              None, i)
+    return points
+
+
+def _point(job: Job, future: cf.Future, index: int) -> Point:
+    if future.cancelled():
+        return Point(job.inputs, CANCELLED, "cancelled before it was rated", None, index)
+    exc = future.exception()
+    if exc is not None:  # the worker itself broke (a lost process, a lost cluster worker)
+        return Point(job.inputs, "failed", f"{type(exc).__name__}: {_first_line(exc)}",
+                     None, index)
+    result = future.result()
+    message = "" if result.status != "failed" else result.message
+    return Point(job.inputs, result.status, message, result, index)
+
+
+__all__ = ["CANCELLED", "REFUSED", "InlineExecutor", "Job", "Point", "default_executor",
+           "executor_scope", "rate_one", "rate_points"]

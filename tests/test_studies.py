@@ -1,0 +1,298 @@
+"""Studies: sweeps, the spread between methods, the operating envelope, fit to plant data.
+
+The sweeps run on the pentane vaporiser sample (a rating takes a few hundredths of a
+second); the fits on the chiller sample, whose duty falls steadily with fouling (no
+dryout anywhere in the range: the fitted quantity is a monotonic function of the
+fouling resistance, so a unique answer exists).
+"""
+from __future__ import annotations
+
+import dataclasses
+import math
+from pathlib import Path
+
+import numpy as np
+import pytest
+
+import rating
+from rating import catalogue
+from rating.errors import InputError
+from rating.studies import (CANCELLED, REFUSED, InlineExecutor, Measurement, Parameter,
+                            Variation, applicable_methods, default_executor, envelope, fit,
+                            method_spread, parse_variation, sweep)
+
+SAMPLES = Path(__file__).parent.parent / "samples"
+
+
+@pytest.fixture(scope="module")
+def pentane():
+    return rating.load_project(SAMPLES / "pentane-vaporiser.ebullio").case(
+        "C5 vaporiser V-12 performance")
+
+
+@pytest.fixture(scope="module")
+def chiller():
+    return rating.load_project(SAMPLES / "chiller-evaporator.ebullio").cases[0]
+
+
+@pytest.fixture(scope="module")
+def pool():
+    with default_executor(2) as executor:
+        yield executor
+
+
+LENGTHS = parse_variation("tubes.length=1:4:20")
+
+
+# --- sweeps and their execution ----------------------------------------------------------
+
+def test_parse_variation_forms():
+    v = parse_variation("tubes.length=2:5:13")
+    assert v.path == "tubes.length" and len(v.values) == 13
+    assert v.values[0] == 2.0 and v.values[-1] == 5.0 and v.values[1] == pytest.approx(2.25)
+    assert parse_variation("heating.pressure=2e5,3e5").values == (2e5, 3e5)
+    for bad in ("tubes.length", "tubes.length=a:b:3", "tubes.length=1:2:1", "=1,2"):
+        with pytest.raises(InputError):
+            parse_variation(bad)
+
+
+def test_sweep_refuses_a_path_that_is_not_a_numeric_input(pentane):
+    with pytest.raises(InputError, match="tubes.lenght: not a numeric input"):
+        sweep(pentane, [Variation("tubes.lenght", (1.0, 2.0))], executor=InlineExecutor())
+
+
+def test_parallel_sweep_equals_serial_and_single_ratings(pentane, pool):
+    """20 points on two worker processes give the same numbers, in the same order, as in
+    this process; and each equals a rating of the case built by hand (the sweep sets
+    nothing but the varied length)."""
+    serial = sweep(pentane, [LENGTHS], executor=InlineExecutor())
+    parallel = sweep(pentane, [LENGTHS], executor=pool)
+    assert len(parallel.points) == 20
+    assert [p.inputs for p in parallel.points] == [{"tubes.length": x} for x in LENGTHS.values]
+    assert [p.result.summary for p in parallel.points] == [p.result.summary for p in serial.points]
+    for i in (0, 7, 19):
+        tubes = dataclasses.replace(pentane.tubes, length=LENGTHS.values[i])
+        direct = rating.rate(dataclasses.replace(pentane, tubes=tubes))
+        assert parallel.points[i].result.summary == direct.summary
+    # A longer tube transfers more heat (the same inlet states, more area).
+    duties = parallel.values("duty_W")
+    assert all(b > a for a, b in zip(duties, duties[1:]))
+
+
+def test_default_executor_keeps_input_order(pentane):
+    """With no executor given, a process pool on all cores is made and shut down."""
+    short = Variation("tubes.length", (4.0, 1.0, 2.5))
+    points = sweep(pentane, [short]).points
+    assert [p.inputs["tubes.length"] for p in points] == [4.0, 1.0, 2.5]
+    duties = [p.value("duty_W") for p in points]
+    assert duties[1] < duties[2] < duties[0]
+
+
+def test_two_inputs_give_every_combination(pentane):
+    s = sweep(pentane, [Variation("tubes.length", (1.5, 3.0)),
+                        Variation("heating.pressure", (1.5e5, 2.0e5, 2.5e5))],
+              executor=InlineExecutor())
+    assert s.shape == (2, 3) and len(s.points) == 6
+    assert s.points[4].inputs == {"tubes.length": 3.0, "heating.pressure": 2.0e5}
+    grid = s.grid("duty_W")
+    assert grid.shape == (2, 3) and np.all(np.isfinite(grid))
+    # Hotter steam at the same length gives more duty at the short length, before dryout.
+    assert grid[0, 0] < grid[0, 1]
+
+
+def test_failing_points_keep_their_place_and_reason(pentane, pool):
+    """A refused value (a negative length: the catalogue's own range message) and a point
+    the engine cannot rate (steam colder than the boiling pentane) stay in the table."""
+    values = (2.0, -1.0, 3.0)
+    s = sweep(pentane, [Variation("tubes.length", values)], executor=pool)
+    assert [p.inputs["tubes.length"] for p in s.points] == list(values)
+    bad = s.points[1]
+    assert bad.status == REFUSED and "length" in bad.message and bad.result is None
+    assert bad.value("duty_W") is None           # not computed, never 0
+    assert s.points[0].rated and s.points[2].rated
+    # Saturated steam at 1.1 bar(a) condenses at 102 degC; n-pentane boils at 3 bar(a)
+    # near 66 degC (CoolProp), so 0.3 bar(a) steam (69 degC) gives almost no duty
+    # and 0.2 bar(a) (60 degC) is colder than the boiling side: refused or failed.
+    cold = sweep(pentane, [Variation("heating.pressure", (2.0e5, 0.2e5, 2.5e5))],
+                 executor=InlineExecutor())
+    assert not cold.points[1].rated and cold.points[1].message
+    assert cold.points[0].rated and cold.points[2].rated
+    assert cold.failed == [cold.points[1]]
+
+
+def test_cancel_stops_queued_points(pentane):
+    """Cancelled after three points: those three are rated, the rest come back cancelled
+    in their places."""
+    done = []
+    s = sweep(pentane, [LENGTHS], executor=InlineExecutor(),
+              progress=lambda n, total: done.append((n, total)), cancel=lambda: len(done) > 3)
+    statuses = [p.status for p in s.points]
+    assert all(p.rated for p in s.points[:3])
+    assert statuses[3:] == [CANCELLED] * 17
+    assert done[-1][1] == 20
+
+
+def test_cancel_on_a_process_pool(pentane, pool):
+    """Cancelled once the first point is back: the two workers finish what they hold
+    (at most a few points), the queued rest come back cancelled, all in their places."""
+    done = []
+    s = sweep(pentane, [LENGTHS], executor=pool, progress=lambda n, total: done.append(n),
+              cancel=lambda: done[-1] >= 1 if done else False)
+    assert [p.inputs["tubes.length"] for p in s.points] == list(LENGTHS.values)
+    rated = [p for p in s.points if p.rated]
+    assert 1 <= len(rated) <= 8
+    assert sum(p.status == CANCELLED for p in s.points) == 20 - len(rated)
+    serial = sweep(pentane, [Variation("tubes.length", (rated[0].inputs["tubes.length"],))],
+                   executor=InlineExecutor())
+    assert rated[0].result.summary == serial.points[0].result.summary
+
+
+# --- method spread -----------------------------------------------------------------------
+
+def test_spread_lists_every_applicable_method_once_with_a_positive_duty_spread(pentane, pool):
+    spread = method_spread(pentane, "flow_boiling", executor=pool)
+    names = [m[0] for m in spread.methods]
+    expected = [n for n, _, _ in catalogue.method_choices(
+        "methods.flow_boiling", catalogue.case_to_draft(pentane))]
+    assert sorted(names) == sorted(set(expected)) and len(names) == len(set(names))
+    assert spread.chosen == pentane.methods.flow_boiling and spread.chosen in names
+    for (name, _, _), point in zip(spread.methods, spread.points):
+        assert point.rated, point.message
+        # The rating really used that method: its own method trail says so.
+        used = {m.name for m in point.result.methods if m.family == "flow_boiling"}
+        assert used == {name}
+    duty = spread.range("duty_W")
+    assert duty["spread"] > 0.0 and duty["high"] > duty["low"]
+    assert {duty["low_method"], duty["high_method"]} <= set(names)
+    assert set(spread.keys) == {"duty_W", "over_design_pct", "exit_quality", "max_chf_ratio"}
+
+
+def test_spread_of_dryout_methods_skips_the_automatic_choice(pentane):
+    names = [n for n, _, _ in applicable_methods(pentane, "dryout")]
+    assert "auto" not in names and len(names) == len(set(names)) and names
+
+
+def test_spread_refuses_an_unknown_family(pentane):
+    with pytest.raises(InputError, match="choose one of"):
+        method_spread(pentane, "boiling", executor=InlineExecutor())
+
+
+# --- operating envelope ------------------------------------------------------------------
+
+def _envelope(case, fouling, executor):
+    fouled = catalogue.with_value(case, "boiling.fouling_resistance", fouling)
+    return envelope(fouled, Variation("boiling.mass_flow", (6.0, 8.0)),
+                    Variation("heating.pressure", tuple(np.linspace(1.2e5, 3.0e5, 7))),
+                    required_duty=1.3e6, executor=executor)
+
+
+def test_envelope_boundaries_move_up_the_steam_pressure_when_fouling_rises(pentane, pool):
+    """A fouling resistance in series lowers the heat flux at a given steam temperature
+    (Fourier: q = dT / sum of resistances). So, fouled, the unit needs hotter steam to
+    meet its duty, and it reaches the critical-flux margin only at hotter steam: both
+    boundaries move to higher steam pressure."""
+    clean, fouled = _envelope(pentane, 2.5e-4, pool), _envelope(pentane, 3.5e-4, pool)
+    assert clean.limits == ("duty", "critical_flux")
+    assert clean.operating_point == (4.5, 2.0e5)
+    for limit in clean.limits:
+        for (x, y_clean), (_, y_fouled) in zip(clean.boundary(limit), fouled.boundary(limit)):
+            assert y_clean is not None and y_fouled is not None, (limit, x)
+            assert y_fouled > y_clean, (limit, x)
+    # The classification agrees with the margins it was drawn from.
+    within, margin = fouled.within["duty"], fouled.margin["duty"]
+    for idx in np.ndindex(within.shape):
+        assert within[idx] == (margin[idx] >= 0.0)
+    # Low steam pressure misses the duty; high steam pressure dries the tubes out.
+    inside = fouled.inside
+    assert inside[0, 0] is False and inside[0, -1] is False and any(inside[0])
+
+
+def test_envelope_of_a_thermosiphon_judges_circulation(pool):
+    case = rating.load_project(SAMPLES / "stripper-reboiler.ebullio").cases[0]
+    env = envelope(case, Variation("heating.pressure", (1.8e5,)),
+                   Variation("thermosiphon.liquid_level", (0.3, 2.0)), executor=pool)
+    assert env.limits == ("critical_flux", "circulation", "stability")
+    assert env.within["circulation"][0, 1] is True
+    # A level barely above the tube sheet gives too little head for this loop: the
+    # engine says it will not circulate (or refuses), and the envelope marks it.
+    assert env.within["circulation"][0, 0] in (False, None)
+
+
+# --- fit to plant data -------------------------------------------------------------------
+
+TRUE_FOULING = 4e-4     # m^2*K/W, a TEMA-range value for a refrigerant (common practice)
+
+
+@pytest.fixture(scope="module")
+def plant(chiller):
+    """The 'plant': the chiller rated with a known boiling-side fouling."""
+    return rating.rate(catalogue.with_value(chiller, "boiling.fouling_resistance", TRUE_FOULING))
+
+
+def test_fit_recovers_a_known_fouling_and_its_uncertainty(chiller, plant):
+    """The chilled-water outlet temperature of a rating made with R_f = 4e-4 m^2K/W is
+    fitted from R_f = 1.76e-4 (the sample's). The data carry no noise, so the minimum is
+    the true value up to the solver's tolerance (1e-10 of the range) and the rating's
+    numerical noise; 1e-6 m^2K/W (0.25 %) is 60 times below the uncertainty that a 0.1 K
+    tolerance gives, so a larger miss is a fault of the fit, not of the data.
+    The reported uncertainty is checked against the sensitivity measured here by central
+    differences of two ratings: sigma = tolerance / |dT/dR_f| (linear error propagation)."""
+    measured = plant.summary["heating_outlet_temperature_K"]
+    result = fit(chiller, [Measurement("heating_outlet_temperature_K", measured, 0.1)],
+                 [Parameter("boiling.fouling_resistance", 0.0, 2e-3)], executor=InlineExecutor())
+    assert result.status == "fitted" and not result.warnings
+    assert result.values["boiling.fouling_resistance"] == pytest.approx(TRUE_FOULING, abs=1e-6)
+    d = 5e-5
+    up, down = (rating.rate(catalogue.with_value(chiller, "boiling.fouling_resistance",
+                                                 TRUE_FOULING + s)).summary[
+        "heating_outlet_temperature_K"] for s in (d, -d))
+    sigma = 0.1 / abs((up - down) / (2 * d))
+    assert result.uncertainty["boiling.fouling_resistance"] == pytest.approx(sigma, rel=0.05)
+    assert result.identifiable == {"boiling.fouling_resistance": True}
+    assert abs(result.residuals[0][3]) < 1e-3
+
+
+def test_fit_reports_an_unidentifiable_parameter(chiller, plant):
+    """The boiling R134a leaves at its saturation temperature: its outlet temperature
+    moves by thousandths of a kelvin over the whole fouling range (only through the
+    pressure drop), so with a 0.5 K tolerance it cannot fix the fouling."""
+    measured = plant.summary["exit_temperature_K"]
+    result = fit(chiller, [Measurement("exit_temperature_K", measured, 0.5)],
+                 [Parameter("boiling.fouling_resistance", 0.0, 2e-3)], executor=InlineExecutor())
+    assert result.status == "unidentifiable"
+    assert result.identifiable == {"boiling.fouling_resistance": False}
+    assert result.uncertainty["boiling.fouling_resistance"] is None
+    assert any("not identifiable" in w for w in result.warnings)
+
+
+def test_fit_warns_when_the_data_cannot_be_met(chiller, plant):
+    """Chilled water measured 3 K warmer than any fouling in the range can give: the fit
+    ends at the bound and says the fit is poor."""
+    measured = plant.summary["heating_outlet_temperature_K"] + 3.0
+    result = fit(chiller, [Measurement("heating_outlet_temperature_K", measured, 0.1)],
+                 [Parameter("boiling.fouling_resistance", 0.0, 2e-3)], executor=InlineExecutor())
+    assert result.status == "poor"
+    assert result.values["boiling.fouling_resistance"] == pytest.approx(2e-3)
+    assert any("upper bound" in w for w in result.warnings)
+    assert any(w.startswith("poor fit") for w in result.warnings)
+
+
+def test_fit_refuses_bad_input(chiller):
+    ex = InlineExecutor()
+    with pytest.raises(InputError, match="not a result"):
+        fit(chiller, [Measurement("duty", 1.0, 0.1)],
+            [Parameter("boiling.fouling_resistance", 0.0, 1e-3)], executor=ex)
+    with pytest.raises(InputError, match="rising"):
+        fit(chiller, [Measurement("duty_W", 4e4, 1e3)],
+            [Parameter("boiling.fouling_resistance", 1e-3, 0.0)], executor=ex)
+    with pytest.raises(InputError, match="tolerance"):
+        fit(chiller, [Measurement("duty_W", 4e4, 0.0)],
+            [Parameter("boiling.fouling_resistance", 0.0, 1e-3)], executor=ex)
+
+
+def test_points_and_studies_are_plain_data(pentane):
+    s = sweep(pentane, [Variation("tubes.length", (2.0, -1.0))], executor=InlineExecutor())
+    data = s.to_dict(["duty_W"])
+    assert data["points"][1]["summary"] == {"duty_W": None}
+    assert data["points"][0]["summary"]["duty_W"] > 0.0
+    assert math.isfinite(data["points"][0]["summary"]["duty_W"])
