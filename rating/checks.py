@@ -9,6 +9,7 @@ from __future__ import annotations
 import math
 
 from .correlations import registry
+from .correlations.pool_boiling import nucleate_fluid_constants
 from .march import WETTED_REGIMES
 from .results import RatingWarning
 
@@ -97,7 +98,7 @@ LIMIT_SOURCES = {
 _POOL_CHF_K = 0.149
 
 
-def critical_superheat(sat, nucleate_method: str) -> float:
+def critical_superheat(sat, nucleate_method: str, fluid=None) -> float:
     """Wall superheat at which nucleate pool boiling reaches the pool critical heat flux [K].
 
     q_max from Zuber's hydrodynamic form with Lienhard & Dhir's constant 0.149;
@@ -106,9 +107,10 @@ def critical_superheat(sat, nucleate_method: str) -> float:
     """
     q_max = (_POOL_CHF_K * sat.h_lv * math.sqrt(sat.rho_v)
              * (sat.sigma * 9.80665 * (sat.rho_l - sat.rho_v)) ** 0.25)
-    avail = sat.as_dict()
-    avail["q"] = q_max
-    htc = registry.get(nucleate_method)(avail)
+    method = registry.get(nucleate_method)
+    inputs, options = nucleate_fluid_constants(method, fluid) if fluid is not None else ({}, {})
+    avail = dict(sat.as_dict(), q=q_max, **inputs)
+    htc = method(avail, **options)
     return q_max / htc
 
 
@@ -123,13 +125,18 @@ def evaluate(case, outcome, *, fluid, service: str = "evaporator") -> list[Ratin
     # Dryout inside the tube.
     if outcome.dryout_z is not None:
         s = _first(st, lambda s: s.regime in ("post-dryout", "superheated vapour")) or st[-1]
-        by = "the " + (outcome.dryout_cause or "critical heat flux")
         severity = "error" if s.x < 0.0 else "warning"
-        out.append(RatingWarning(
-            "dryout", severity,
-            f"dryout starts at z = {outcome.dryout_z:.3f} m (quality {max(s.x, 0.0):.3f}) where "
-            f"{by} is reached; downstream the wall is vapour-cooled and its temperature rises "
-            f"to {max(t.T_wall_inner for t in st):.1f} K", outcome.dryout_z))
+        t_wall = max(t.T_wall_inner for t in st)
+        if outcome.dryout_cause == "complete evaporation":
+            text = (f"the tube is dry from z = {outcome.dryout_z:.3f} m: the liquid is all "
+                    "evaporated there (quality 1) with the wall still wet before it; downstream "
+                    f"the vapour is superheated and the wall temperature rises to {t_wall:.1f} K")
+        else:
+            by = "the " + (outcome.dryout_cause or "critical heat flux")
+            text = (f"dryout starts at z = {outcome.dryout_z:.3f} m (quality {max(s.x, 0.0):.3f}) "
+                    f"where {by} is reached; downstream the wall is vapour-cooled and its "
+                    f"temperature rises to {t_wall:.1f} K")
+        out.append(RatingWarning("dryout", severity, text, outcome.dryout_z))
 
     # Heat flux close to critical before dryout.
     wet = [s for s in st if s.regime in WETTED_REGIMES]
@@ -144,7 +151,7 @@ def evaluate(case, outcome, *, fluid, service: str = "evaporator") -> list[Ratin
     # Wall superheat in the film-boiling range (before dryout: after it the jump is expected).
     boiling = [s for s in wet if s.regime != "subcooled liquid" and s.q > 0.0]
     for s in boiling:
-        dT_crit = critical_superheat(fluid.saturation(s.P), case.methods.nucleate_boiling)
+        dT_crit = critical_superheat(fluid.saturation(s.P), case.methods.nucleate_boiling, fluid)
         if s.wall_superheat > dT_crit:
             out.append(RatingWarning(
                 "film-boiling-superheat", "warning",
@@ -187,9 +194,11 @@ def evaluate(case, outcome, *, fluid, service: str = "evaporator") -> list[Ratin
                 f"heat flux {top.q_outer:.4g} W/m^2 above the Kern limit "
                 f"{lim.kern_flux_cap:.4g} W/m^2 (a screening cap, not a CHF prediction)", top.z))
 
-    # Correlations used outside their range.
+    # Correlations used outside their range, and methods used in place of the chosen one.
     for msg, z in outcome.range_notes.items():
         out.append(RatingWarning("method-range", "warning", msg + f" (first at z = {z:.3f} m)", z))
+    for msg, z in getattr(outcome, "method_notes", {}).items():
+        out.append(RatingWarning("method-substituted", "info", msg + f" (from z = {z:.3f} m)", z))
     return out
 
 

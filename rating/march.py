@@ -46,6 +46,17 @@ REGIMES = ("subcooled liquid", "subcooled boiling", "saturated boiling",
 #: Regimes with a wetted wall, where a flux-to-critical-flux ratio means something.
 WETTED_REGIMES = REGIMES[:3]
 
+#: The data behind the Wojtan et al. (2005) dryout-onset quality x_di (their refit of
+#: Mori et al. 2000 to R22 and R410A in 8 and 13.84 mm tubes) [memory]: the boiling
+#: fluids (CoolProp names), inner diameter [m], mass flux [kg/m^2/s], heat flux [W/m^2].
+#: Outside it x_di is not used and dryout is found by the general dryout method alone.
+WOJTAN_DRYOUT_DATA = {
+    "fluid": ("R22", "R410A"),
+    "D": (0.008, 0.01384, "m"),
+    "G": (70.0, 700.0, "kg/m^2/s"),
+    "q": (2.0e3, 57.5e3, "W/m^2"),
+}
+
 
 class Cancelled(Exception):
     """Raised inside the march when the caller's cancel flag is set."""
@@ -113,6 +124,8 @@ class BoilingTube:
     critical_quality: float | None = None
     flow_pattern_method: str | None = None
     flow_boiling_options: dict = field(default_factory=dict)  # fluid-specific constants
+    nucleate_inputs: dict = field(default_factory=dict)       # fluid constants (Gorenflo's h0)
+    nucleate_options: dict = field(default_factory=dict)
 
     @property
     def G(self) -> float:
@@ -131,9 +144,11 @@ class MarchOutcome:
     message: str = ""
     dryout_z: float | None = None
     range_notes: dict = field(default_factory=dict)   # message -> first z
+    method_notes: dict = field(default_factory=dict)  # a method used in place of another -> z
     start_heating_state: object = None
     end_heating_state: object = None
-    dryout_cause: str | None = None        # "critical heat flux" or "critical quality"
+    dryout_cause: str | None = None        # "critical heat flux", "critical quality" or
+    #                                        "complete evaporation" (quality reaching 1)
     dryout_trigger_ratio: float = 0.0      # q/q_chf of the wetted wall where dryout began
     pressure_exhausted: bool = False       # failed because friction and acceleration used up P
 
@@ -163,6 +178,10 @@ class HeatingSide:
         """Heat capacity rate m cp [W/K] of the medium; infinite when it condenses."""
         return math.inf
 
+    def out_of_range(self, state, T_h: float, z: float, q_outer: float) -> list[tuple[str, str]]:
+        """(bound, message) for each validity bound the heating-side method passes here."""
+        return []
+
 
 # --------------------------------------------------------------------------- local solve
 
@@ -179,6 +198,7 @@ class _Local:
     T_b: float
     T_sat: float
     sat: object
+    z: float = 0.0
 
 
 class Marcher:
@@ -203,6 +223,7 @@ class Marcher:
         self.void = registry.get(tube.void_fraction)
         self.chf = registry.get(tube.tube_dryout)
         self.pattern = registry.get(tube.flow_pattern_method) if tube.flow_pattern_method else None
+        self.single = registry.get(tube.single_phase_tube)
         self.post = registry.get("dougall_rohsenow_1963")
         self.sub = registry.get("liu_winterton_1991_subcooled")
         # Fluid-specific constants: required ones travel with the inputs, the rest as options.
@@ -222,12 +243,20 @@ class Marcher:
         self._sat_dicts: dict[float, dict] = {}
         self._chf_memo = None
         self._chf_x_min = self.chf.validity.get("x", (None, None))[0]
+        # a dryout method whose validity names the boiling length gets the pool-CHF floor
+        self._L_D_min = self.chf.validity.get("L_D", (None, None))[0]
+        self._short_length_floor = self._L_D_min is not None and "L" not in self.chf.inputs
+        self._pool_chf = registry.get("zuber_1959")
+        self._floored = False   # the last critical flux was the pool-boiling floor
+        self.method_notes: dict[str, float] = {}   # a method taken in place of another -> z
         self._q_guess = 0.0
         self.dried_out = False
         self.dryout_z: float | None = None
         self.dryout_cause: str | None = None
         self.dryout_trigger_ratio = 0.0
         self.x_dryout_onset = tube.critical_quality
+        self._wojtan_fixed = [] if tube.vertical else self._wojtan_bounds_crossed(
+            fluid=getattr(tube.fluid, "coolprop_name", ""), D=tube.D_i, G=tube.G)
 
     # ---- properties of the boiling fluid at (P, h)
     def _bulk(self, P, h):
@@ -248,10 +277,7 @@ class Marcher:
         bound passed along the whole tube is reported once, where it starts.
         """
         for msg in method.out_of_range(available):
-            bound = msg.split(" = ", 1)[0]
-            if bound not in self._range_bounds:
-                self._range_bounds.add(bound)
-                self.range_notes[msg] = z
+            self._note(msg.split(" = ", 1)[0], msg, z)
 
     def _sat_inputs(self, sat) -> dict:
         """The saturation set as a dict for registry dispatch (kept per set)."""
@@ -273,18 +299,19 @@ class Marcher:
         if regime in ("subcooled liquid", "subcooled boiling"):
             rho, mu, k, cp = single_props
             htc_l = htc_tube_single_phase(G, t.D_i, mu, k, cp, method=t.single_phase_tube)
-            avail = dict(self._sat_inputs(sat))
-            nb, sub = self.nb, self.sub.function
+            avail = dict(self._sat_inputs(sat), **t.nucleate_inputs)
+            nb, sub, nb_opts = self.nb, self.sub.function, t.nucleate_options
 
             def T_s(q):
                 if q <= 0.0:
                     return T_b
                 avail["q"] = q
-                return sub(q, T_b, sat.T_sat, htc_l, nb(avail), G, t.D_i, mu)
+                return sub(q, T_b, sat.T_sat, htc_l, nb(avail, **nb_opts), G, t.D_i, mu)
 
             def films(q):
                 avail["q"] = max(q, 1e-9)
-                return (q / max(T_s(q) - T_b, 1e-9) if q > 0 else htc_l), nb(avail), htc_l
+                return ((q / max(T_s(q) - T_b, 1e-9) if q > 0 else htc_l),
+                        nb(avail, **nb_opts), htc_l)
             return T_s, films
         if regime == "saturated boiling":
             xx = min(max(x, 1e-4), 0.9999)
@@ -308,7 +335,8 @@ class Marcher:
                 q = max(q, 1e-9)
                 htc_l = htc_tube_single_phase(G * (1.0 - xx), t.D_i, sat.mu_l, sat.k_l,
                                               sat.cp_l, method="dittus_boelter_1930")
-                return htc_at(q), self.nb(dict(avail, q=q)), htc_l
+                return (htc_at(q), self.nb(dict(avail, q=q, **t.nucleate_inputs),
+                                           **t.nucleate_options), htc_l)
             return T_s, films
         if regime == "post-dryout":
             avail = dict(self._sat_inputs(sat), G=G, x=min(max(x, 0.0), 1.0), D=t.D_i)
@@ -352,7 +380,7 @@ class Marcher:
             regime = "subcooled boiling"
         self._q_guess = q
         return _Local(regime, q, T_s, htc, htc_nb, htc_conv, film(q * ratio), x, T_b,
-                      sat.T_sat, sat)
+                      sat.T_sat, sat, z)
 
     def _root_flux(self, resid, q_hi):
         """The local flux: bracketed root of the series-resistance balance on [0, q_hi].
@@ -387,22 +415,39 @@ class Marcher:
         return brentq(resid, lo, hi, xtol=1e-9 * max(guess, 1.0), rtol=1e-6, maxiter=200)
 
     # ---- local checks and derived values
-    def _critical_flux(self, P, x, sat):
+    def _critical_flux(self, P, x, sat, z):
         """Local critical heat flux [W/m^2] and the inputs it was evaluated with.
 
         Below the quality range of the dryout method (a saturated-boiling method in
         subcooled flow) it is taken just inside the edge of that range: critical heat
         flux rises with subcooling, so this errs on the safe side. The last result is
         kept, since the dryout check and the station ask for the same state.
+
+        Katto-Ohno at local quality implies a boiling length x G D h_lv / (4 q_CHF);
+        just past the saturation point (and in subcooled flow, evaluated there) it is
+        far below the correlation's data (L/D >= 5), where its value falls steeply and
+        would declare a tube dry in its first centimetres. There the critical flux is
+        not taken below the pool-boiling critical flux (Zuber 1959), which forced flow
+        and subcooling only raise (Collier & Thome 1994, ch. 9 [memory]).
         """
         memo = self._chf_memo
         if memo is not None and memo[0] == P and memo[1] == x:
+            self._floored = memo[4]
             return memo[2], memo[3]
+        t = self.tube
+        self._floored = False
         lo = self._chf_x_min
         x_eval = lo + 1e-4 if lo is not None and x <= lo else x
-        avail = dict(self._sat_inputs(sat), P=P, G=self.tube.G, x=x_eval, D=self.tube.D_i)
+        avail = dict(self._sat_inputs(sat), P=P, G=t.G, x=x_eval, D=t.D_i)
         q_chf = self.chf(avail)
-        self._chf_memo = (P, x, q_chf, avail)
+        if self._short_length_floor and q_chf > 0.0:
+            avail["L"] = x_eval * t.G * t.D_i * sat.h_lv / (4.0 * q_chf)  # implied boiling length
+            if avail["L"] < self._L_D_min * t.D_i:
+                q_pool = self._pool_chf(avail)
+                if q_pool > q_chf:
+                    q_chf = q_pool
+                    self._floored = True
+        self._chf_memo = (P, x, q_chf, avail, self._floored)
         return q_chf, avail
 
     def _station(self, z, P, h, hstate, local: _Local, duty, dpdz_f) -> Station:
@@ -416,8 +461,18 @@ class Marcher:
         T_wi = local.T_s + q * t.fouling_inner
         T_wo = T_wi + q * t.wall_resistance_inner
         htc_h = self.heating.film_htc(hstate, T_h, z, q_o)
-        q_chf, avail = self._critical_flux(P, x, sat)
-        self._note_range(self.chf, avail, z)
+        for bound, msg in self.heating.out_of_range(hstate, T_h, z, q_o):
+            self._note(bound, msg, z)
+        q_chf, avail = self._critical_flux(P, x, sat, z)
+        if self._floored and q > 0.5 * q_chf and not self.method_notes:
+            self.method_notes[
+                f"{self.chf.title} is evaluated at a boiling length below its data "
+                f"(L/D = {avail['L'] / t.D_i:.2g} < {self._L_D_min:g}) and reads below the "
+                f"pool-boiling critical flux; the critical flux is taken as "
+                f"{self._pool_chf.title} ({q_chf:.4g} W/m^2), which flow and subcooling only "
+                "raise"] = z
+        elif q > 0.5 * q_chf:  # a bound crossed where the critical flux cannot decide is moot
+            self._note_range(self.chf, avail, z)
         pattern = self._flow_pattern(z, x, q, sat, alpha)
         r_boil = 1.0 / local.htc if local.htc > 0 else 0.0
         r_heat = 1.0 / htc_h if htc_h > 0 else 0.0
@@ -456,6 +511,7 @@ class Marcher:
         avail.update(G=self.tube.G, x=x, D=self.tube.D_i, q=max(q, 1.0))
         opts = {"z": max(z, 1e-3)} if "z" in self.pattern.options else {}
         pattern = self.pattern(avail, **opts)
+        self._note_range(self.pattern, avail, z)
         if self.dried_out and pattern not in ("dryout", "mist"):
             return "mist"  # a map without a dryout zone (vertical): the film is gone
         return pattern
@@ -493,6 +549,21 @@ class Marcher:
         rho = single[0] if single is not None else (sat.rho_l if x <= 0.0 else sat.rho_v)
         return G * G / rho
 
+    def _wojtan_bounds_crossed(self, **values) -> list[str]:
+        """Bounds of WOJTAN_DRYOUT_DATA that the given values cross, as phrases."""
+        out = []
+        for key, value in values.items():
+            if key == "fluid":
+                if value not in WOJTAN_DRYOUT_DATA["fluid"]:
+                    out.append(f"fluid {value or 'this fluid'} is not one of its data's "
+                               f"({', '.join(WOJTAN_DRYOUT_DATA['fluid'])})")
+                continue
+            lo, hi, unit = WOJTAN_DRYOUT_DATA[key]
+            if not lo <= value <= hi:
+                out.append(f"{key} = {value:.4g} {unit} is outside its data {lo:.4g} to "
+                           f"{hi:.4g} {unit}")
+        return out
+
     def _dryout_margin(self, local: _Local):
         """How far the wetted wall is past dryout: >= 0 means dry.
 
@@ -504,13 +575,14 @@ class Marcher:
         x = local.x
         if x >= 1.0:
             return -math.inf, None, 0.0
-        q_chf, _ = self._critical_flux(local.sat.P, x, local.sat)
+        q_chf, _ = self._critical_flux(local.sat.P, x, local.sat, local.z)
         if local.q <= 0.0:
             ratio = 0.0
         else:  # a zero critical flux means no wetted wall is possible here
             ratio = local.q / q_chf if q_chf > 0.0 else math.inf
         x_crit = self.x_dryout_onset
-        if not self.tube.vertical and local.q > 0.0 and x > 0.0:
+        if (not self.tube.vertical and local.q > 0.0 and x > 0.0
+                and not self._wojtan_fixed and not self._wojtan_bounds_crossed(q=local.q)):
             s = local.sat
             x_di = wojtan_dryout_qualities(self.tube.G, local.q, self.tube.D_i, s.rho_l,
                                            s.rho_v, s.sigma, s.h_lv)[0]
@@ -524,7 +596,7 @@ class Marcher:
     def _local(self, z, P, h, hs, bulk=None):
         bulk = bulk or self._bulk(P, h)
         local = self.solve_local(z, P, h, hs, bulk)
-        self._note_ranges_at(z, local)
+        self._note_ranges_at(z, local, bulk)
         return bulk, local
 
     def _dry_out_here(self, z, local):
@@ -576,7 +648,7 @@ class Marcher:
                                          exhausted=True)
                 if end_local is not None:
                     bulk, local = end_local
-                    self._note_ranges_at(z, local)
+                    self._note_ranges_at(z, local, bulk)
                 else:
                     bulk, local = self._local(z, P, h, hs)
                 if event == "dryout":
@@ -584,6 +656,10 @@ class Marcher:
                     stations.append(self._station(z, P, h, hs, local, duty, dpf))
                     self._dry_out_here(z, local)
                     bulk, local = self._local(z, P, h, hs, bulk)
+                elif event == "dry vapour" and not self.dried_out:
+                    # The wall stayed wet up to complete evaporation: the tube is dry from here.
+                    self.dried_out, self.dryout_z = True, z
+                    self.dryout_cause = "complete evaporation"
                 stations.append(self._station(z, P, h, hs, local, duty, dpf))
                 if event == "duty":
                     return self._outcome(stations)
@@ -633,6 +709,7 @@ class Marcher:
 
     def _outcome(self, stations, status="ok", message="", *, exhausted=False):
         return MarchOutcome(stations, status, message, self.dryout_z, dict(self.range_notes),
+                            method_notes=dict(self.method_notes),
                             start_heating_state=self._hs0, end_heating_state=self._hs,
                             dryout_cause=self.dryout_cause,
                             dryout_trigger_ratio=self.dryout_trigger_ratio,
@@ -694,12 +771,38 @@ class Marcher:
             length = step  # f(step) > 0 is known
         return (length,) + cache[length]
 
-    def _note_ranges_at(self, z, local: _Local):
-        if local.regime == "saturated boiling":
-            avail = dict(self._sat_inputs(local.sat))
-            avail.update(G=self.tube.G, x=min(max(local.x, 1e-4), 0.9999), D=self.tube.D_i,
+    def _note_ranges_at(self, z, local: _Local, bulk):
+        """Validity bounds of every method evaluated at this station (once per bound)."""
+        t = self.tube
+        regime, base = local.regime, self._sat_inputs(local.sat)
+        single = bulk[3]
+        if single is not None and regime in ("subcooled liquid", "subcooled boiling",
+                                             "superheated vapour"):
+            rho, mu, k, cp = single
+            self._note_range(self.single, {"Re": t.G * t.D_i / mu, "Pr": cp * mu / k}, z)
+        if regime in ("subcooled boiling", "saturated boiling") and local.q > 0.0:
+            self._note_range(self.nb, dict(base, q=local.q, **t.nucleate_inputs), z)
+        if regime == "subcooled boiling":
+            self._note_range(self.sub, dict(base, G=t.G, D=t.D_i), z)
+        if regime == "saturated boiling":
+            avail = dict(base, G=t.G, x=min(max(local.x, 1e-4), 0.9999), D=t.D_i,
                          q=max(local.q, 1.0), **self.fb_inputs)
-            self._note_range(self.fb, avail, z)
+            for method in (self.fb, self.fric, self.void):
+                self._note_range(method, avail, z)
+            if not t.vertical and local.q > 0.0:
+                for phrase in self._wojtan_fixed + self._wojtan_bounds_crossed(q=local.q):
+                    self._note(f"Wojtan x_di {phrase.split()[0]}", (
+                        f"the Wojtan et al. (2005) dryout-onset quality is not used: {phrase}; "
+                        f"dryout is found by {self.chf.title} alone"), z)
+        if regime == "post-dryout":
+            self._note_range(self.post, dict(base, G=t.G, x=min(max(local.x, 0.0), 1.0),
+                                             D=t.D_i), z)
+
+    def _note(self, bound, message, z):
+        """Record a message once per bound, at the first position where it holds."""
+        if bound not in self._range_bounds:
+            self._range_bounds.add(bound)
+            self.range_notes[message] = z
 
     def _step(self, z, dz, P, h, hs, n_par, loc0, bulk0):
         """One midpoint increment from a solved station; returns the end state, the

@@ -600,9 +600,44 @@ def check_case(case) -> None:
     if case.heating.kind == "liquid" and case.shell is None and case.type != "kettle":
         _fail("shell", None, "", "required when heating.kind = 'liquid' "
               "(the shell-side coefficient needs the shell and its baffles)")
+    if case.type == "evaporator" and case.tubes.orientation == "vertical" and case.tubes.passes > 1:
+        _fail("tubes.passes", case.tubes.passes, "", VERTICAL_PASSES_RULE)
     from .catalogue import check_hard_ranges  # every number within its catalogue range
     check_hard_ranges(case)
-    _check_temperatures(case)
+    fluid = _check_temperatures(case)
+    _check_method_choices(case, fluid)
+
+
+#: Why a vertical evaporator has one tube pass: in a second pass the two-phase mixture flows
+#: down, and neither its static head (recovered, not lost) nor the void-fraction, flow-pattern
+#: and flow-boiling methods of down-flow are modelled; every method here was fitted to
+#: up-flow or horizontal data.
+VERTICAL_PASSES_RULE = (
+    "a vertical evaporator is rated with one tube pass (boiling up-flow): in the even passes "
+    "the two-phase mixture would flow down, and down-flow (its static head recovered, its void "
+    "fraction and boiling coefficient) is not modelled by any method here; give passes = 1 "
+    "(tubes.length is the length of one pass), or horizontal tubes")
+
+
+def _check_method_choices(case, fluid) -> None:
+    """Every method choice the case's type evaluates can be fed and used there."""
+    from .correlations import registry
+
+    orientation = case.tubes.orientation
+    for family in registry.families_evaluated(case.type, case.heating.kind):
+        name = getattr(case.methods, family)
+        if family == "tube_dryout" and name == "auto":
+            continue
+        reason = registry.why_not(registry.get(name), case.type, orientation, fluid.cas)
+        if reason is None:
+            continue
+        usable = [m.name for m in registry.applicable(family, case.type, orientation, fluid.cas)]
+        if family == "tube_dryout":
+            usable.insert(0, "auto")
+        _fail(f"methods.{family}", name, "",
+              f"cannot be used for {'an' if case.type[0] in 'aeiou' else 'a'} {case.type} "
+              f"with {orientation} tubes and {fluid.name}: "
+              f"{reason}; choose one of " + ", ".join(usable))
 
 
 def _fluid(name: str, value):
@@ -672,3 +707,4 @@ def _check_temperatures(case) -> None:
         if heating.inlet_temperature <= T_sat:
             _fail("heating.inlet_temperature", heating.inlet_temperature, "K",
                   f"must be hotter than the boiling point {at}")
+    return fluid

@@ -80,6 +80,7 @@ def _lut_interpolate(P, G, x):
 @register(
     "tube_dryout", "Groeneveld et al. 2006 CHF look-up table (water)",
     validity={"P": (1e5, 2.1e7), "G": (0.0, 8000.0), "x": (-0.5, 1.0), "D": (0.003, None)},
+    fluids=("7732-18-5",),
     references=(
         "Groeneveld, D.C., Shan, J.Q., Vasic, A.Z., Leung, L.K.H., Durmayaz, A., Yang, J., "
         "Cheng, S.C. & Tanase, A. (2007) The 2006 CHF look-up table, Nucl. Eng. Des. 237, "
@@ -137,6 +138,7 @@ def groeneveld_2006(P, G, x, D):
 @register(
     "tube_dryout", "Bowring (1972), uniformly heated tube (water)",
     validity={"P": (0.7e6, 17e6), "G": (136.0, 18600.0), "D": (0.002, 0.045), "L": (0.15, 3.7)},
+    fluids=("7732-18-5",),
     references=(
         "Bowring, R.W. (1972) A simple but accurate round tube, uniform heat flux, dryout "
         "correlation over the pressure range 0.7-17 MN/m2 (100-2500 psia), "
@@ -254,7 +256,7 @@ def _katto_ohno(G, D, L, rho_l, rho_v, sigma, h_lv):
 
 @register(
     "tube_dryout", "Katto-Ohno (1984), uniformly heated tube",
-    validity={"D": (0.001, 0.038)},
+    validity={"D": (0.001, 0.038), "L_D": (5.0, 880.0)},
     references=(
         "Katto, Y. & Ohno, H. (1984) An improved version of the generalized correlation of "
         "critical heat flux for the forced convective boiling in uniformly heated vertical "
@@ -332,7 +334,7 @@ _LD_MAX = 1000.0
 
 @register(
     "tube_dryout", "Katto-Ohno (1984) at local quality (saturated-inlet tube)",
-    validity={"D": (0.001, 0.038), "x": (0.0, 1.0)},
+    validity={"D": (0.001, 0.038), "x": (0.0, 1.0), "L_D": (5.0, 880.0)},
     references=(
         "Katto, Y. & Ohno, H. (1984) An improved version of the generalized correlation of "
         "critical heat flux for the forced convective boiling in uniformly heated vertical "

@@ -599,7 +599,7 @@ def _st_nucleate_factor(q, q_ref, D, roughness, p_r, M):
 
 @register(
     "flow_boiling", "Steiner-Taborek (1992)",
-    validity={"p_r": (None, 0.95), "M": (10.0, 187.0)},
+    validity={"p_r": (None, 0.95), "M": (10.0, 187.0)}, orientations=("vertical",),
     references=(
         "Steiner, D. & Taborek, J. (1992) Flow boiling heat transfer in vertical tubes "
         "correlated by an asymptotic model, Heat Transfer Eng. 13(2), 43-69, "

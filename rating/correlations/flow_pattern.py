@@ -248,6 +248,7 @@ def wojtan_transitions(G, x, D, q, rho_l, rho_v, mu_l, mu_v, sigma, h_lv):
     "flow_pattern",
     "Wojtan-Ursenbacher-Thome (2005) horizontal-tube map (Kattan-Thome-Favrat 1998 updated)",
     validity={"G": (70.0, 700.0), "D": (0.008, 0.014), "q": (0.0, 57.5e3)},
+    orientations=("horizontal",),
     references=(
         "Wojtan, L., Ursenbacher, T. & Thome, J.R. (2005) Investigation of flow boiling in "
         "horizontal tubes: Part I - A new diabatic two-phase flow pattern map, "
@@ -399,7 +400,7 @@ def wojtan_ursenbacher_thome_2005(G, x, D, q, rho_l, rho_v, mu_l, mu_v, sigma, h
 
 @register(
     "flow_pattern", "Taitel-Bornea-Dukler (1980) vertical up-flow map",
-    validity={"D": (0.025, 0.051)},
+    validity={"D": (0.025, 0.051)}, orientations=("vertical",),
     references=(
         "Taitel, Y., Bornea, D. & Dukler, A.E. (1980) Modelling flow pattern transitions for "
         "steady upward gas-liquid flow in vertical tubes, AIChE J. 26(3), 345-354, "

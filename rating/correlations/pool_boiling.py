@@ -200,6 +200,28 @@ def gorenflo_reference_htc(cas):
     return GORENFLO_H0.get(cas)
 
 
+def nucleate_fluid_constants(method, fluid) -> tuple[dict, dict]:
+    """The fluid constants a nucleate method takes beyond the saturation set and flux:
+    (inputs, options) for ``method(available | inputs, **options)``.
+
+    Gorenflo's reference coefficient h0 (from its table; a missing one raises
+    ``PropertyError`` naming the fluid) and its separate water form.
+    """
+    from ..errors import PropertyError
+
+    inputs, options = {}, {}
+    if "h0" in method.inputs:
+        h0 = gorenflo_reference_htc(fluid.cas)
+        if h0 is None:
+            raise PropertyError(f"{method.title} needs a reference coefficient h0 for "
+                                f"{fluid.name}, and none is tabulated; choose another nucleate "
+                                "boiling method", fluid=fluid.name)
+        inputs["h0"] = h0
+    if "water" in method.options:
+        options["water"] = fluid.coolprop_name.lower() == "water"
+    return inputs, options
+
+
 @register(
     "nucleate_boiling", "Gorenflo (VDI Heat Atlas 1993)",
     validity={"p_r": (0.0005, 0.95)},

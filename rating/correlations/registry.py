@@ -94,6 +94,7 @@ DERIVED: dict[str, tuple[tuple[str, ...], Callable[[Mapping], float]]] = {
     "Re_shell": (("m_dot", "mu", "shell"), _re_shell),
     "Re_kern": (("m_dot", "mu", "shell"), _re_kern),
     "baffle_cut": (("shell",), lambda a: a["shell"].baffle_cut),
+    "L_D": (("L", "D"), lambda a: a["L"] / a["D"]),
 }
 
 
@@ -108,6 +109,10 @@ class Method:
     validity: Mapping[str, tuple[float | None, float | None]] = field(default_factory=dict)
     references: tuple[str, ...] = ()
     notes: str = ""
+    #: Orientations of the heated tubes the method was published for (None: any).
+    orientations: tuple[str, ...] | None = None
+    #: CAS numbers of the only fluids the method holds for (None: any fluid).
+    fluids: tuple[str, ...] | None = None
 
     @cached_property
     def inputs(self) -> tuple[str, ...]:
@@ -152,15 +157,23 @@ class Method:
             if value is None or not math.isfinite(value):
                 continue
             if (lo is not None and value < lo) or (hi is not None and value > hi):
+                unit = f" {UNITS[key]}" if UNITS.get(key) else ""
                 messages.append(
-                    f"{self.title}: {key} = {value:.4g} outside its range "
-                    f"[{_fmt(lo)}, {_fmt(hi)}]"
+                    f"{self.title}: {key} = {value:.4g}{unit} outside its range "
+                    f"{_fmt(lo)} to {_fmt(hi, '+inf')}{unit}"
                 )
         return messages
 
 
-def _fmt(v):
-    return "-inf" if v is None else f"{v:.4g}"
+#: Units of the quantities a validity range may name (SI); the others are dimensionless.
+UNITS = {
+    "P": "Pa", "G": "kg/m^2/s", "D": "m", "L": "m", "q": "W/m^2", "dT": "K", "M": "kg/kmol",
+    "boiling_range": "K",
+}
+
+
+def _fmt(v, none="-inf"):
+    return none if v is None else f"{v:.4g}"
 
 
 def quantity(key: str, available: Mapping[str, float]) -> float | None:
@@ -177,8 +190,14 @@ def quantity(key: str, available: Mapping[str, float]) -> float | None:
 REGISTRY: dict[str, Method] = {}
 
 
-def register(family: str, title: str, *, validity=None, references=(), notes=""):
-    """Decorator: record a correlation function in the registry under its own name."""
+def register(family: str, title: str, *, validity=None, references=(), notes="",
+             orientations=None, fluids=None):
+    """Decorator: record a correlation function in the registry under its own name.
+
+    ``orientations`` names the tube orientations the method was published for
+    ("vertical", "horizontal"); None means it holds for either. ``fluids`` lists the
+    CAS numbers of the only fluids it holds for (a water-only table); None means any.
+    """
     if family not in FAMILIES:
         raise ValueError(f"unknown family {family!r}")
 
@@ -188,6 +207,8 @@ def register(family: str, title: str, *, validity=None, references=(), notes="")
         REGISTRY[fn.__name__] = Method(
             name=fn.__name__, family=family, function=fn, title=title,
             validity=dict(validity or {}), references=tuple(references), notes=notes,
+            orientations=tuple(orientations) if orientations else None,
+            fluids=tuple(fluids) if fluids else None,
         )
         return fn
 
@@ -205,3 +226,97 @@ def get(name: str) -> Method:
 def methods(family: str) -> list[Method]:
     """All methods of one family, in registration order."""
     return [m for m in REGISTRY.values() if m.family == family]
+
+
+# --------------------------------------------------------------------------- applicability
+
+#: The saturation set the engine hands to every method (``properties.SaturationSet.as_dict``).
+_SAT = frozenset({"P", "T_sat", "rho_l", "rho_v", "h_l", "h_v", "h_lv", "mu_l", "mu_v", "k_l",
+                  "k_v", "cp_l", "cp_v", "sigma", "Pr_l", "P_crit", "M", "dPdT_sat"})
+_LOCAL = frozenset({"G", "x", "D"})
+WATER_CAS = "7732-18-5"
+
+#: What each exchanger type feeds the methods of each family the user may choose: the
+#: argument names available where the family is evaluated. A method applies to a type
+#: when the type evaluates its family, its required inputs are all fed, and its
+#: orientations (if declared) include the tubes'. "h0" and "h_nb_ref" are fluid constants
+#: fed where they are tabulated for the fluid (``fluid_constants_missing``).
+_TUBE_MARCH = {
+    # heat-flux forms; wall-superheat forms (Chen) are solved for the flux by the march
+    "flow_boiling": _SAT | _LOCAL | {"q", "dT_sat", "dp_sat", "fluid_surface_factor", "h_nb_ref"},
+    # evaluated at a given flux (subcooled boiling, the nucleate part of the profile)
+    "nucleate_boiling": _SAT | {"q", "h0"},
+    "two_phase_friction": _SAT | _LOCAL,
+    "void_fraction": _SAT | _LOCAL,
+    # local conditions only: whole-tube forms need a heated length and inlet subcooling
+    "tube_dryout": _SAT | _LOCAL,
+    "single_phase_tube": frozenset({"Re", "Pr"}),
+    "shell_side": frozenset({"m_dot", "rho", "mu", "cp", "k", "shell"}),
+}
+FEEDS: dict[str, dict[str, frozenset]] = {
+    "evaporator": _TUBE_MARCH,
+    "thermosiphon": _TUBE_MARCH,
+    "kettle": {
+        # pool boiling on the bundle: the wall superheat is solved, so both forms are fed
+        "nucleate_boiling": _SAT | {"q", "h0", "dT_sat", "dp_sat"},
+        "single_phase_tube": frozenset({"Re", "Pr"}),      # heating liquid inside the tubes
+        "two_phase_friction": _SAT | _LOCAL,               # steam condensing inside the tubes
+    },
+}
+
+
+def families_evaluated(case_type: str, heating_kind: str | None = None) -> tuple[str, ...]:
+    """Method families whose choice matters for an exchanger type (the others are ignored);
+    with condensing steam on the shell side (``heating_kind`` "steam") no shell-side
+    single-phase method is evaluated."""
+    return tuple(f for f in FEEDS.get(case_type, {})
+                 if not (f == "shell_side" and heating_kind == "steam"))
+
+
+def fluid_constants_missing(method: Method, fluid_cas: str | None) -> list[str]:
+    """Fluid constants the method needs that are not tabulated for this fluid (CAS number)."""
+    if fluid_cas is None:
+        return []
+    from .flow_boiling import steiner_taborek_reference
+    from .pool_boiling import gorenflo_reference_htc
+
+    missing = []
+    if "h0" in method.inputs and gorenflo_reference_htc(fluid_cas) is None:
+        missing.append("h0")
+    if "h_nb_ref" in method.inputs and steiner_taborek_reference(fluid_cas) is None \
+            and gorenflo_reference_htc(fluid_cas) is None:
+        missing.append("h_nb_ref")
+    return missing
+
+
+def why_not(method: Method, case_type: str, orientation: str | None = None,
+            fluid_cas: str | None = None) -> str | None:
+    """Why the method cannot be used for this type and orientation, or None if it can."""
+    feeds = FEEDS.get(case_type, {}).get(method.family)
+    if feeds is None:
+        return f"this exchanger type ({case_type}) does not evaluate {FAMILIES[method.family].lower()}"
+    unfed = [n for n in method.inputs if n not in feeds]
+    if unfed:
+        return (f"it needs {', '.join(unfed)}, which a rating of this type ({case_type}) "
+                "does not supply where the method is evaluated")
+    if orientation is not None and method.orientations and orientation not in method.orientations:
+        return f"it was published for {' or '.join(method.orientations)} tubes only"
+    if fluid_cas is not None and method.fluids and fluid_cas not in method.fluids:
+        return "it holds for " + ("water" if method.fluids == (WATER_CAS,) else
+                                  "the fluids " + ", ".join(method.fluids)) + " only"
+    missing = fluid_constants_missing(method, fluid_cas)
+    if missing:
+        return f"its fluid constant {', '.join(missing)} is not tabulated for this fluid"
+    return None
+
+
+def applicable(family: str, case_type: str, orientation: str | None = None,
+               fluid_cas: str | None = None) -> list[Method]:
+    """Methods of a family that a rating of this exchanger type and tube orientation can
+    feed and use (all of them rate); empty when the type does not evaluate the family.
+
+    ``fluid_cas`` (the boiling fluid's CAS number) also drops the methods whose fluid
+    constant is not tabulated for it.
+    """
+    return [m for m in methods(family)
+            if why_not(m, case_type, orientation, fluid_cas) is None]

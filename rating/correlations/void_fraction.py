@@ -231,7 +231,7 @@ def rouhani_axelsson_1970(x, rho_l, rho_v, sigma, G, *, D=None, variant="horizon
 
 @register(
     "void_fraction", "Steiner (1993), Rouhani-Axelsson for horizontal tubes",
-    validity=_QUALITY,
+    validity=_QUALITY, orientations=("horizontal",),
     references=(
         "Steiner, D. (1993) Stroemungssieden gesaettigter Fluessigkeiten, VDI-Waermeatlas, "
         "section Hbb, VDI-Verlag; VDI Heat Atlas, 2nd ed. (2010), Springer",

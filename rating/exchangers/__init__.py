@@ -5,6 +5,7 @@ progress, cancel) -> Result``.
 """
 from __future__ import annotations
 
+import dataclasses
 import importlib
 
 from ..errors import PropertyError
@@ -25,3 +26,9 @@ def rate_case(case, *, increments=None, progress=None, cancel=None):
         return rater(case, increments=increments, progress=progress, cancel=cancel)
     except PropertyError as exc:
         return failed(case, str(exc))
+    except Exception as exc:  # noqa: BLE001 - a result, never a traceback, whatever went wrong
+        methods = ", ".join(f"{f.name} = {getattr(case.methods, f.name)}"
+                            for f in dataclasses.fields(case.methods))
+        return failed(case, f"case {case.name!r} ({case.type}) could not be rated: "
+                      f"{type(exc).__name__}: {exc} (methods: {methods}); please report it "
+                      "with the project file")

@@ -19,7 +19,7 @@ import math
 from .. import checks
 from ..correlations import registry
 from ..correlations.flow_boiling import kandlikar_fluid_factor, steiner_taborek_reference
-from ..correlations.pool_boiling import gorenflo_reference_htc
+from ..correlations.pool_boiling import gorenflo_reference_htc, nucleate_fluid_constants
 from ..march import (WETTED_REGIMES, BoilingTube, Cancelled, Marcher, MarchOutcome,
                      solve_counter_current)
 from ..errors import PropertyError
@@ -87,6 +87,7 @@ def flow_boiling_options(case, fluid) -> dict:
 def boiling_tube(case, fluid) -> BoilingTube:
     t, b, m = case.tubes, case.boiling, case.methods
     vertical = t.orientation == "vertical"
+    nb_inputs, nb_options = nucleate_fluid_constants(registry.get(m.nucleate_boiling), fluid)
     return BoilingTube(
         fluid=fluid, D_i=t.inner_diameter, D_o=t.outer_diameter,
         wall_conductivity=t.conductivity, roughness=t.roughness, vertical=vertical,
@@ -99,6 +100,7 @@ def boiling_tube(case, fluid) -> BoilingTube:
         flow_pattern_method="taitel_bornea_dukler_1980" if vertical
         else "wojtan_ursenbacher_thome_2005",
         flow_boiling_options=flow_boiling_options(case, fluid),
+        nucleate_inputs=nb_inputs, nucleate_options=nb_options,
     )
 
 
@@ -173,6 +175,14 @@ def methods_used(tube: BoilingTube, case, heating) -> tuple[MethodUsed, ...]:
     return tuple(out)
 
 
+def with_substitutes(methods, outcome) -> tuple[MethodUsed, ...]:
+    """The method trail with the methods the march took in place of a chosen one."""
+    if not outcome.method_notes:
+        return methods
+    m = registry.get("zuber_1959")
+    return methods + (MethodUsed(m.family, m.name, m.reference, m.title),)
+
+
 def rate_evaporator(case, *, increments=None, progress=None, cancel=None) -> Result:
     """Rate an in-tube evaporator case; never raises for a physical reason."""
     n = increments or case.increments or DEFAULT_INCREMENTS
@@ -237,8 +247,8 @@ def rate_evaporator(case, *, increments=None, progress=None, cancel=None) -> Res
     status = "warnings" if any(w.severity in ("warning", "error") for w in warnings) else "ok"
     message = "rated" if not notes else "; ".join(notes)
     return Result(case.name, case.type, status, message, summary,
-                  profiles_from_stations(primary.stations), tuple(warnings), methods,
-                  extra={"increments": n})
+                  profiles_from_stations(primary.stations), tuple(warnings),
+                  with_substitutes(methods, primary), extra={"increments": n})
 
 
 def _shoot_counter_current(case, fluid, heating, hs_inlet, march, P0):

@@ -37,9 +37,11 @@ class SteamHeating(HeatingSide):
             htc_1K = method.function(tube_outer_diameter, 1.0, s.rho_l, s.rho_v, s.mu_l, s.k_l,
                                      s.h_lv, rows=tube_rows)
         self.method = method
+        self.length, self.rows = tube_length, tube_rows
         # Nusselt: htc ~ dT^(-1/4), so q = C dT^(3/4) and dT = (q/C)^(4/3).
         self.C = htc_1K
         self._profile = None
+        self._profile_notes = []
 
     def use_condensate_profile(self, z, film_flow):
         """Use the local film coefficient for a known condensate film along the tube.
@@ -53,9 +55,12 @@ class SteamHeating(HeatingSide):
         s = self.sat
         local = registry.get("nusselt_kutateladze_labuntsov_local")
         # Near the top edge the film is vanishingly thin; Re_f >= 1 keeps it finite.
-        htc = [local.function(max(4.0 * g / s.mu_l, 1.0), s.rho_l, s.rho_v, s.mu_l, s.k_l,
-                              s.cp_l) for g in film_flow]
+        re_f = [max(4.0 * g / s.mu_l, 1.0) for g in film_flow]
+        htc = [local.function(r, s.rho_l, s.rho_v, s.mu_l, s.k_l, s.cp_l) for r in re_f]
         self._profile = (list(z), htc)
+        # where along the tube the film's Reynolds number leaves the method's range
+        self._profile_notes = [(zi, m.split(" = ", 1)[0], m) for zi, r in zip(z, re_f)
+                               for m in local.out_of_range({"Re_f": r})]
 
     def use_mean_coefficient(self):
         """Back to Nusselt's mean coefficient (no condensate profile known yet)."""
@@ -92,6 +97,16 @@ class SteamHeating(HeatingSide):
     def advance(self, state, duty):
         return state
 
+    def out_of_range(self, state, T_h, z, q_outer):
+        s = self.sat
+        if self._profile is not None:
+            return [(bound, msg) for zi, bound, msg in self._profile_notes if zi <= z]
+        dT = self._dT(q_outer)
+        if dT <= 0.0:
+            return []
+        avail = dict(s.as_dict(), dT=dT, L=self.length, rows=self.rows)
+        return [(m.split(" = ", 1)[0], m) for m in self.method.out_of_range(avail)]
+
 
 class LiquidHeating(HeatingSide):
     """A single-phase liquid or gas on the shell side, co- or counter-current."""
@@ -111,6 +126,7 @@ class LiquidHeating(HeatingSide):
         self.geometry = shell_geometry
         self.method = registry.get(method)
         self._htc_cache: dict[float, float] = {}
+        self._range_checked: set[float] = set()
         self._table = self._build_table(*temperature_range) if temperature_range else None
 
     def _build_table(self, T_lo, T_hi):
@@ -171,6 +187,15 @@ class LiquidHeating(HeatingSide):
     def advance(self, h, duty):
         # the process receives ``duty``; the medium gives up duty / (1 - loss share)
         return h - self.sign * duty / (self.mass_flow * (1.0 - self.loss_share))
+
+    def out_of_range(self, state, T_h, z, q_outer):
+        key = round(T_h, 0)   # the Reynolds number changes with T slowly; check per kelvin
+        if key in self._range_checked:
+            return []
+        self._range_checked.add(key)
+        p = self.fluid.single_phase(self.pressure, T_h)
+        avail = {"m_dot": self.mass_flow, "mu": p.mu, "shell": self.geometry}
+        return [(m.split(" = ", 1)[0], m) for m in self.method.out_of_range(avail)]
 
     def capacity_rate(self, h):
         table = self._table

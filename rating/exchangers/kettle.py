@@ -90,7 +90,8 @@ from scipy.optimize import brentq
 from .. import checks
 from ..correlations import registry
 from ..correlations.dimensionless import g
-from ..correlations.pool_boiling import bundle_geometry_factor, gorenflo_reference_htc
+from ..correlations.pool_boiling import (bundle_geometry_factor,
+                                         nucleate_fluid_constants)
 from ..errors import PropertyError
 from ..march import Cancelled
 from ..properties import make_fluid
@@ -227,16 +228,7 @@ class _Kettle:
 def _nucleate(case, fluid):
     """The nucleate method, the inputs it needs beyond the saturation set, its options."""
     method = registry.get(case.methods.nucleate_boiling)
-    inputs, options = {}, {}
-    if "h0" in method.inputs:
-        h0 = gorenflo_reference_htc(fluid.cas)
-        if h0 is None:
-            raise PropertyError(f"{method.title} needs a reference coefficient h0 for "
-                                f"{fluid.name}, and none is tabulated; choose another nucleate "
-                                "boiling method", fluid=fluid.name)
-        inputs["h0"] = h0
-    if "water" in method.options:
-        options["water"] = fluid.coolprop_name.lower() == "water"
+    inputs, options = nucleate_fluid_constants(method, fluid)
     title = method.title
     if "factor_form" in method.options:  # Mostinski: Palen's reboiler form, with which F_b goes
         options["factor_form"] = "palen"

@@ -76,7 +76,7 @@ from ..properties import make_fluid
 from ..results import SUMMARY_KEYS, RatingWarning, Result, failed, profiles_from_stations
 from . import piping
 from .evaporator import (DEFAULT_INCREMENTS, march_summary, boiling_tube, condensate_film,
-                         heating_side, methods_used)
+                         heating_side, methods_used, with_substitutes)
 from .heating import SteamHeating
 
 #: Flows in the scan, spaced evenly in log W.
@@ -532,7 +532,8 @@ def rate_thermosiphon(case, *, increments=None, progress=None, cancel=None) -> R
         progress(1.0)
     status = "warnings" if any(w.severity in ("warning", "error") for w in warnings) else "ok"
     return Result(case.name, case.type, status, message, summary,
-                  profiles_from_stations(outcome.stations), tuple(warnings), methods,
+                  profiles_from_stations(outcome.stations), tuple(warnings),
+                  with_substitutes(methods, outcome),
                   extra={"increments": n, "pressure_balance_curve": curve})
 
 
