@@ -36,6 +36,7 @@ from scipy.optimize import brentq
 from .correlations import registry
 from .correlations.dimensionless import g
 from .correlations.flow_boiling import flow_boiling_htc
+from .correlations.dryout import KATTO_OHNO_L_D
 from .correlations.flow_pattern import wojtan_dryout_qualities
 from .correlations.single_phase import htc_tube_single_phase
 from .errors import OutOfRangeError, PropertyError
@@ -243,9 +244,9 @@ class Marcher:
         self._sat_dicts: dict[float, dict] = {}
         self._chf_memo = None
         self._chf_x_min = self.chf.validity.get("x", (None, None))[0]
-        # a dryout method whose validity names the boiling length gets the pool-CHF floor
-        self._L_D_min = self.chf.validity.get("L_D", (None, None))[0]
-        self._short_length_floor = self._L_D_min is not None and "L" not in self.chf.inputs
+        # Katto-Ohno at local quality: its implied boiling length against its data
+        self._short_length_floor = self.chf.name == "katto_ohno_local"
+        self._L_D_min = KATTO_OHNO_L_D[0]
         self._pool_chf = registry.get("zuber_1959")
         self._floored = False   # the last critical flux was the pool-boiling floor
         self.method_notes: dict[str, float] = {}   # a method taken in place of another -> z
@@ -464,15 +465,20 @@ class Marcher:
         for bound, msg in self.heating.out_of_range(hstate, T_h, z, q_o):
             self._note(bound, msg, z)
         q_chf, avail = self._critical_flux(P, x, sat, z)
-        if self._floored and q > 0.5 * q_chf and not self.method_notes:
+        wet = local.regime in WETTED_REGIMES
+        if wet and self._floored and q > 0.5 * q_chf and not self.method_notes:
             self.method_notes[
                 f"{self.chf.title} is evaluated at a boiling length below its data "
                 f"(L/D = {avail['L'] / t.D_i:.2g} < {self._L_D_min:g}) and reads below the "
                 f"pool-boiling critical flux; the critical flux is taken as "
                 f"{self._pool_chf.title} ({q_chf:.4g} W/m^2), which flow and subcooling only "
                 "raise"] = z
-        elif q > 0.5 * q_chf:  # a bound crossed where the critical flux cannot decide is moot
+        elif wet and q > 0.5 * q_chf:  # where the critical flux cannot decide, a bound is moot
             self._note_range(self.chf, avail, z)
+            if self._short_length_floor and avail.get("L", math.inf) < self._L_D_min * t.D_i:
+                self._note("boiling length", (
+                    f"{self.chf.title}: boiling length L/D = {avail['L'] / t.D_i:.3g} outside "
+                    f"its data {KATTO_OHNO_L_D[0]:g} to {KATTO_OHNO_L_D[1]:g}"), z)
         pattern = self._flow_pattern(z, x, q, sat, alpha)
         r_boil = 1.0 / local.htc if local.htc > 0 else 0.0
         r_heat = 1.0 / htc_h if htc_h > 0 else 0.0
@@ -792,7 +798,7 @@ class Marcher:
             if not t.vertical and local.q > 0.0:
                 for phrase in self._wojtan_fixed + self._wojtan_bounds_crossed(q=local.q):
                     self._note(f"Wojtan x_di {phrase.split()[0]}", (
-                        f"the Wojtan et al. (2005) dryout-onset quality is not used: {phrase}; "
+                        f"the Wojtan et al. (2005) dryout-onset quality is not used where {phrase}; "
                         f"dryout is found by {self.chf.title} alone"), z)
         if regime == "post-dryout":
             self._note_range(self.post, dict(base, G=t.G, x=min(max(local.x, 0.0), 1.0),

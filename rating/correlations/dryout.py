@@ -218,6 +218,11 @@ def bowring_1972(P, G, D, L, h_lv, *, dh_in=0.0):
 # Katto & Ohno (1984)
 # --------------------------------------------------------------------------
 
+#: Heated length over diameter of Katto and Ohno's data [memory]; at local quality the
+#: boiling length x G D h_lv / (4 q) is the one to hold against it (rating.march).
+KATTO_OHNO_L_D = (5.0, 880.0)
+
+
 def _katto_ohno(G, D, L, rho_l, rho_v, sigma, h_lv):
     """Saturated-inlet q_co [W/m^2] and the inlet-subcooling factor K."""
     R = rho_v / rho_l
@@ -256,7 +261,7 @@ def _katto_ohno(G, D, L, rho_l, rho_v, sigma, h_lv):
 
 @register(
     "tube_dryout", "Katto-Ohno (1984), uniformly heated tube",
-    validity={"D": (0.001, 0.038), "L_D": (5.0, 880.0)},
+    validity={"D": (0.001, 0.038), "L_D": KATTO_OHNO_L_D},
     references=(
         "Katto, Y. & Ohno, H. (1984) An improved version of the generalized correlation of "
         "critical heat flux for the forced convective boiling in uniformly heated vertical "
@@ -334,7 +339,7 @@ _LD_MAX = 1000.0
 
 @register(
     "tube_dryout", "Katto-Ohno (1984) at local quality (saturated-inlet tube)",
-    validity={"D": (0.001, 0.038), "x": (0.0, 1.0), "L_D": (5.0, 880.0)},
+    validity={"D": (0.001, 0.038), "x": (0.0, 1.0)},
     references=(
         "Katto, Y. & Ohno, H. (1984) An improved version of the generalized correlation of "
         "critical heat flux for the forced convective boiling in uniformly heated vertical "
