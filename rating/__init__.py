@@ -38,8 +38,12 @@ def rate(case, *, increments=None, progress=None, cancel=None) -> Result:
     ``progress(fraction)`` is called as the march advances; ``cancel()`` is
     polled between increments and, when it returns True, the rating stops with a
     "failed" result that says it was cancelled. Input errors raise ``InputError``
-    before any rating starts (they are found when the case is built).
+    before any rating starts (they are found when the case is built), and so does an
+    ``increments`` outside ``rating.validation.INCREMENTS``.
     """
+    if increments is not None:
+        from .validation import check_increments
+        check_increments(increments)
     from .exchangers import rate_case
     from .derived import rate_with_heat_loss, with_inputs_shown
     result = rate_with_heat_loss(case, rate_case, increments=increments, progress=progress,

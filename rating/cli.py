@@ -4,20 +4,53 @@
 Reports are written by a writer passed in to ``main`` (the console script's entry
 point, ``gui.report.command``, passes Ebullio's): the engine imports no Qt or plotting.
 
-Exit status: 0 rated; 1 rated with an error-severity warning, or not converged;
-2 bad input (one line on stderr, no traceback).
+Exit status (also in ``--help``, the README and DEVELOPERS.md):
+
+    0  rated; no error-severity finding
+    1  rated, with an error-severity finding or a case that could not be rated
+    2  bad input: the project file, an option or the output folder (one line on stderr)
+    3  internal error: a fault in Ebullio (one line on stderr and a hint, no traceback)
+
+Everything a run could refuse (file, options, output folder) is checked before the
+first case is rated, so no rating is thrown away for an output problem. The small
+functions below (``guarded``, ``refuse``, ``write_out``, ``exit_code``, ``csv_names``,
+``prepare_folder``) are meant for other commands too.
+
+Only the standard library is imported at module level: ``ebullio-rate --help`` does
+not load the fluid-property library, whose import is most of a cold start.
 """
 from __future__ import annotations
 
 import argparse
 import csv
 import json
+import os
 import sys
 from pathlib import Path
 
 CAUTION = ("Results are engineering estimates. They must be checked by a qualified engineer "
            "under local codes and licensed practice before use in the design or operation "
            "of pressure equipment, steam systems or plant handling flammable fluids.")
+
+EXIT_RATED = 0
+EXIT_FINDINGS = 1
+EXIT_BAD_INPUT = 2
+EXIT_INTERNAL = 3
+
+EXIT_CODES = f"""\
+exit status:
+  {EXIT_RATED}  rated; no error-severity finding
+  {EXIT_FINDINGS}  rated, with an error-severity finding or a case that could not be rated
+  {EXIT_BAD_INPUT}  bad input: the project file, an option or the output folder
+     (one line on standard error, nothing rated, nothing written)
+  {EXIT_INTERNAL}  internal error: a fault in Ebullio (one line on standard error)"""
+
+COLD_START = ("A first call takes about 5 to 15 s before the first rating, most of it "
+              "loading the fluid-property library (CoolProp); each case then takes "
+              "0.1 to 2 s.")
+
+#: Set to 1 to see the traceback of an internal error (for a bug report).
+DEBUG_VARIABLE = "EBULLIO_DEBUG"
 
 # Rows of the readable table: (summary key, label, scale, offset, unit).
 _ROWS = (
@@ -39,15 +72,27 @@ _ROWS = (
 )
 
 
+class _Parser(argparse.ArgumentParser):
+    """A usage error is one line too, with exit status 2."""
+
+    def error(self, message):
+        refuse(f"{message} (see {self.prog} --help)", self.prog)
+        raise SystemExit(EXIT_BAD_INPUT)
+
+
 def _parser():
-    p = argparse.ArgumentParser(
+    p = _Parser(
         prog="ebullio-rate",
         description="Rate the cases of an Ebullio project file (.ebullio).",
-        epilog=CAUTION)
+        epilog=f"{EXIT_CODES}\n\n{COLD_START}\n\n{CAUTION}",
+        formatter_class=argparse.RawDescriptionHelpFormatter)
     p.add_argument("file", help="project file")
     p.add_argument("--case", help="rate only the case of this name")
-    p.add_argument("--json", action="store_true", help="print the results as JSON")
-    p.add_argument("--csv", metavar="DIR", help="write the profiles of each case as CSV into DIR")
+    p.add_argument("--json", action="store_true",
+                   help="print the results as JSON (the caution is its \"caution\" key)")
+    p.add_argument("--csv", metavar="DIR",
+                   help="write the profiles of each case as CSV into DIR (created if needed); "
+                        "the first line of each file is the caution, the second the column names")
     p.add_argument("--increments", type=int, metavar="N",
                    help="increments along the heated length (default: the case's or the engine's)")
     p.add_argument("--report", metavar="OUT", help="write a rating report, OUT.pdf or OUT.html")
@@ -59,6 +104,147 @@ def _parser():
 REPORT_UNITS = ("SI", "metric", "US")
 REPORT_SUFFIXES = (".pdf", ".html", ".htm")
 
+
+# --- output and exit status, shared by the headless commands ---------------------------
+
+def refuse(message: str, prog: str = "ebullio-rate") -> int:
+    """Print one line on stderr and give the exit status of bad input."""
+    line = str(message).strip().splitlines()[0] if str(message).strip() else "bad input"
+    print(f"{prog}: {line}", file=sys.stderr)
+    return EXIT_BAD_INPUT
+
+
+def _quiet_stdout() -> None:
+    """After the reader closed the pipe: send what remains to the null device, so that
+    the interpreter's final flush does not complain."""
+    try:
+        devnull = os.open(os.devnull, os.O_WRONLY)
+        os.dup2(devnull, sys.stdout.fileno())
+    except (OSError, ValueError, AttributeError):
+        pass
+
+
+def write_out(text: str) -> bool:
+    """Write to standard output; False (quietly) when the reader has gone (``| head``)."""
+    try:
+        sys.stdout.write(text)
+        sys.stdout.flush()
+    except BrokenPipeError:
+        _quiet_stdout()
+        return False
+    return True
+
+
+def guarded(body, prog: str = "ebullio-rate") -> int:
+    """Run ``body()`` (which returns an exit status) so that no exception reaches the user
+    as a traceback: bad input gives 2 and one line; anything unexpected gives 3, one line
+    and a hint."""
+    from .errors import RatingError
+
+    try:
+        return body()
+    except RatingError as exc:  # input, project file, properties: the user can act on it
+        return refuse(str(exc) or type(exc).__name__, prog)
+    except BrokenPipeError:
+        _quiet_stdout()
+        return EXIT_RATED
+    except KeyboardInterrupt:
+        print(f"{prog}: interrupted", file=sys.stderr)
+        return 130
+    except Exception as exc:  # noqa: BLE001 - the last line of defence, by design
+        if os.environ.get(DEBUG_VARIABLE):
+            raise
+        detail = str(exc).strip().splitlines()[0][:200] if str(exc).strip() else ""
+        print(f"{prog}: internal error ({type(exc).__name__}{': ' + detail if detail else ''}); "
+              f"this is a fault in Ebullio: please report it with the project file "
+              f"({DEBUG_VARIABLE}=1 shows the details)", file=sys.stderr)
+        return EXIT_INTERNAL
+
+
+def exit_code(results) -> int:
+    """0 when every case rated without an error-severity finding, else 1."""
+    bad = any(r.status == "failed" or r.has_errors for r in results)
+    return EXIT_FINDINGS if bad else EXIT_RATED
+
+
+def prepare_folder(folder, option: str = "--csv") -> Path:
+    """An output folder that exists and can be written to (created if needed), checked
+    before any rating; an InputError names the option otherwise."""
+    from .errors import InputError
+
+    path = Path(folder)
+    if path.exists() and not path.is_dir():
+        raise InputError(f"{option} {folder}: is a file, not a folder", field=option)
+    try:
+        path.mkdir(parents=True, exist_ok=True)
+    except OSError as exc:
+        raise InputError(f"{option} {folder}: the folder cannot be created "
+                         f"({exc.strerror or exc})", field=option) from None
+    if not os.access(path, os.W_OK | os.X_OK):
+        raise InputError(f"{option} {folder}: the folder cannot be written to", field=option)
+    return path
+
+
+#: Names Windows reserves for devices, in any case and with any extension.
+_RESERVED = {"CON", "PRN", "AUX", "NUL", *(f"COM{i}" for i in range(1, 10)),
+             *(f"LPT{i}" for i in range(1, 10))}
+_MAX_STEM = 100
+
+
+def csv_names(names) -> list[str]:
+    """One distinct, portable file name per case name (``Pump A/B`` -> ``Pump_A_B.csv``).
+
+    Names that sanitise alike, or differ only in letter case, get ``-2``, ``-3``...
+    """
+    out, taken = [], set()
+    for i, name in enumerate(names):
+        stem = "".join(c if c.isalnum() or c in "-_." else "_" for c in str(name))
+        stem = stem.strip("._")[:_MAX_STEM] or f"case-{i + 1}"
+        if stem.split(".")[0].upper() in _RESERVED:
+            stem = "_" + stem
+        candidate, n = stem, 1
+        while candidate.casefold() in taken:
+            n += 1
+            candidate = f"{stem}-{n}"
+        taken.add(candidate.casefold())
+        out.append(candidate + ".csv")
+    return out
+
+
+def vendor_table(comparison) -> str:
+    """The vendor comparison of one case, beside the summary table."""
+    from .catalogue import vendor_label
+    from .vendor import describe, deviation_text
+
+    lines = [f"  Vendor figures{f' ({comparison.source})' if comparison.source else ''}:"
+             f" {describe(comparison)}"]
+    for r in comparison.rows:
+        _, _, scale, offset, unit = _row_for(r.key or r.figure)
+        note = f"  ({r.note})" if r.note else ""
+        lines.append(f"    {vendor_label(r.figure):<28} vendor {_fmt(r.vendor, scale, offset):>10}"
+                     f"  Ebullio {_fmt(r.ebullio, scale, offset):>10} {unit:<7}"
+                     f" {deviation_text(r) if r.deviation is not None else '':>14}  {r.verdict}{note}")
+    return "\n".join(lines)
+
+
+def write_csv(result, path: Path) -> Path:
+    """The profiles of one result as CSV: the caution, then column names, then rows.
+
+    The caution is one quoted cell, so a spreadsheet shows it whole in the first cell;
+    other readers skip one line (pandas: ``skiprows=1``). Values not computed are empty.
+    """
+    profiles = result.to_dict()["profiles"]
+    keys = list(profiles)
+    with open(path, "w", newline="", encoding="utf-8") as fh:
+        w = csv.writer(fh)
+        w.writerow([f"Caution: {CAUTION}"])
+        w.writerow(keys)
+        for row in zip(*(profiles[k] for k in keys)):
+            w.writerow(row)
+    return path
+
+
+# --- the readable table ----------------------------------------------------------------
 
 # Display of further summary keys by their unit suffix: (suffix, scale, offset, unit).
 _SUFFIXES = (
@@ -85,10 +271,11 @@ def _row_for(key):
 
 def _fmt(v, scale, offset):
     if v is None:
-        return "-"
+        return "not computed"
     if isinstance(v, str):
         return v
-    return f"{v * scale + offset:,.4g}" if abs(v * scale + offset) < 1e6 else f"{v * scale + offset:.4e}"
+    shown = v * scale + offset
+    return f"{shown:,.4g}" if abs(shown) < 1e6 else f"{shown:.4e}"
 
 
 def table(result) -> str:
@@ -98,7 +285,7 @@ def table(result) -> str:
         lines.append(f"  {result.message}")
     known = {row[0] for row in _ROWS}
     rows = [r for r in _ROWS if r[0] in result.summary]
-    rows += [_row_for(k) for k, v in result.summary.items() if k not in known and v is not None]
+    rows += [_row_for(k) for k in result.summary if k not in known]
     for key, label, scale, offset, unit in rows:
         lines.append(f"  {label:<34} {_fmt(result.summary[key], scale, offset):>14}  {unit}")
     for w in result.warnings:
@@ -107,84 +294,84 @@ def table(result) -> str:
     return "\n".join(lines)
 
 
-def vendor_table(comparison) -> str:
-    """The vendor comparison of one case, beside the summary table."""
-    from .catalogue import vendor_label
-    from .vendor import describe, deviation_text
+# --- the command -----------------------------------------------------------------------
 
-    lines = [f"  Vendor figures{f' ({comparison.source})' if comparison.source else ''}:"
-             f" {describe(comparison)}"]
-    for r in comparison.rows:
-        _, _, scale, offset, unit = _row_for(r.key or r.figure)
-        note = f"  ({r.note})" if r.note else ""
-        lines.append(f"    {vendor_label(r.figure):<28} vendor {_fmt(r.vendor, scale, offset):>10}"
-                     f"  Ebullio {_fmt(r.ebullio, scale, offset):>10} {unit:<7}"
-                     f" {deviation_text(r) if r.deviation is not None else '':>14}  {r.verdict}{note}")
-    return "\n".join(lines)
+def _cases(project, args):
+    """The cases to rate: all, or the one named by --case; refused when there are none."""
+    from .errors import InputError
+
+    if not project.cases:
+        raise InputError(f"{args.file} holds no cases: nothing to rate")
+    if args.case is None:
+        return list(project.cases)
+    cases = [c for c in project.cases if c.name == args.case]
+    if not cases:
+        names = ", ".join(c.name for c in project.cases)
+        raise InputError(f"--case {args.case!r}: no such case in {args.file} (cases: {names})")
+    return cases
 
 
-def write_csv(result, directory: Path) -> Path:
-    directory.mkdir(parents=True, exist_ok=True)
-    safe = "".join(c if c.isalnum() or c in "-_." else "_" for c in result.name)
-    path = directory / f"{safe}.csv"
-    keys = list(result.profiles)
-    with open(path, "w", newline="", encoding="utf-8") as fh:
-        w = csv.writer(fh)
-        w.writerow(keys)
-        for row in zip(*(result.profiles[k] for k in keys)):
-            w.writerow(row)
-    return path
+def _check_report(args, report_writer) -> None:
+    """--report: a writer to write it and a path it can be written to, before any rating."""
+    from .errors import InputError
+
+    if args.report is None:
+        return
+    if report_writer is None:
+        raise InputError("--report: reports are written by the ebullio-rate command "
+                         "installed with Ebullio's 'gui' extra")
+    path = Path(args.report)
+    if path.suffix.lower() not in REPORT_SUFFIXES:
+        raise InputError(f"--report {args.report}: must end in .pdf or .html")
+    if path.is_dir():
+        raise InputError(f"--report {args.report}: is a folder, not a file")
+    prepare_folder(path.parent if str(path.parent) else ".", "--report")
+
+
+def _run(args, report_writer=None) -> int:
+    from . import load_project, rate
+    from .validation import check_increments
+    from .vendor import compare
+
+    if args.increments is not None:
+        check_increments(args.increments, "--increments")
+    _check_report(args, report_writer)
+    project = load_project(args.file)
+    cases = _cases(project, args)
+    folder = prepare_folder(args.csv) if args.csv else None
+    results = [rate(c, increments=args.increments) for c in cases]
+    comparisons = [compare(c, r) for c, r in zip(cases, results)]
+    code = exit_code(results)
+    if args.json:
+        text = json.dumps({"caution": CAUTION,
+                           "cases": [dict(r.to_dict(), vendor_comparison=v.to_dict() if v else None)
+                                     for r, v in zip(results, comparisons)]},
+                          indent=1, allow_nan=False) + "\n"
+    else:
+        text = "".join(table(r) + ("\n" + vendor_table(v) if v is not None else "") + "\n\n"
+                       for r, v in zip(results, comparisons)) + CAUTION + "\n"
+    write_out(text)
+    if folder is not None:
+        for r, name in zip(results, csv_names(r.name for r in results)):
+            try:
+                write_csv(r, folder / name)
+            except OSError as exc:
+                return refuse(f"--csv {args.csv}: {name} could not be written "
+                              f"({exc.strerror or exc}); the results above are complete")
+    if args.report is not None:
+        try:
+            report_writer(project, cases, results, args.report, args.units, source_path=args.file)
+        except OSError as exc:
+            return refuse(f"--report {args.report}: could not be written ({exc.strerror or exc}); "
+                          "the results above are complete")
+    return code
 
 
 def main(argv=None, report_writer=None) -> int:
     """Run the command. ``report_writer(project, cases, results, path, units, source_path)``
     writes ``--report``; without one, ``--report`` is refused."""
-    from . import load_project, rate
-    from .errors import InputError, RatingError
-    from .vendor import compare
-
     args = _parser().parse_args(argv)
-    try:
-        if args.increments is not None and not 4 <= args.increments <= 5000:
-            raise InputError(f"--increments = {args.increments}: must be between 4 and 5000")
-        if args.report is not None:
-            if report_writer is None:
-                raise InputError("--report: reports are written by the ebullio-rate command "
-                                 "installed with Ebullio's 'gui' extra")
-            if Path(args.report).suffix.lower() not in REPORT_SUFFIXES:
-                raise InputError(f"--report {args.report}: must end in .pdf or .html")
-        project = load_project(args.file)
-        cases = project.cases
-        if args.case is not None:
-            cases = [c for c in cases if c.name == args.case]
-            if not cases:
-                names = ", ".join(c.name for c in project.cases) or "none"
-                raise InputError(f"--case {args.case!r}: no such case in {args.file} (cases: {names})")
-        results = [rate(c, increments=args.increments) for c in cases]
-        comparisons = [compare(c, r) for c, r in zip(cases, results)]
-        if args.report is not None:
-            report_writer(project, cases, results, args.report, args.units,
-                          source_path=args.file)
-    except (RatingError, OSError) as exc:
-        msg = str(exc).splitlines()[0] if str(exc) else type(exc).__name__
-        print(f"ebullio-rate: {msg}", file=sys.stderr)
-        return 2
-    if args.json:
-        json.dump({"cases": [dict(r.to_dict(), vendor_comparison=v.to_dict() if v else None)
-                             for r, v in zip(results, comparisons)]}, sys.stdout, indent=1)
-        sys.stdout.write("\n")
-    else:
-        for r, v in zip(results, comparisons):
-            print(table(r))
-            if v is not None:
-                print(vendor_table(v))
-            print()
-        print(CAUTION)
-    if args.csv:
-        for r in results:
-            write_csv(r, Path(args.csv))
-    bad = any(r.status == "failed" or r.has_errors for r in results)
-    return 1 if bad else 0
+    return guarded(lambda: _run(args, report_writer))
 
 
 if __name__ == "__main__":  # pragma: no cover

@@ -34,7 +34,8 @@ import json
 import math
 import numbers
 import os
-import tempfile
+import re
+import stat
 import types
 import typing
 from functools import cache
@@ -284,15 +285,78 @@ def _no_duplicates(pairs):
     return obj
 
 
+#: Deepest nesting of objects and lists a project file may have (a real one has 4);
+#: far deeper text would exhaust the parser's recursion.
+MAX_DEPTH = 32
+#: Most digits of a whole number in a project file (a real one has at most 6).
+MAX_DIGITS = 18
+
+
+class _LongInteger:
+    """Stands in, while parsing, for a whole number too long to be an input."""
+
+    def __init__(self, text: str):
+        self.digits = len(text.lstrip("-"))
+
+
+def _parse_int(text: str):
+    return int(text) if len(text.lstrip("-")) <= MAX_DIGITS else _LongInteger(text)
+
+
+def _check_shape(data, source: str) -> None:
+    """Refuse nesting deeper than MAX_DEPTH and over-long integers, naming where."""
+    stack = [(data, "", 0)]
+    while stack:
+        value, path, depth = stack.pop()
+        if isinstance(value, _LongInteger):
+            raise ProjectFileError(f"{path or source} = a whole number of {value.digits} digits: "
+                                   f"too large for any input (at most {MAX_DIGITS} digits)",
+                                   field=path or None)
+        if isinstance(value, (dict, list)):
+            if depth >= MAX_DEPTH:
+                raise ProjectFileError(f"{source} is not an Ebullio project file (objects and "
+                                       f"lists nested more than {MAX_DEPTH} deep at "
+                                       f"{path or 'the top level'})", field=path or None)
+            items = value.items() if isinstance(value, dict) else enumerate(value)
+            for key, item in items:
+                child = f"{path}[{key}]" if isinstance(key, int) else _join(path, key)
+                stack.append((item, child, depth + 1))
+
+
+def _read_regular(path: Path) -> bytes:
+    """The bytes of a regular file; a folder, named pipe or device is refused at once.
+
+    The file is opened without blocking (a named pipe with no writer would wait
+    forever) and its kind checked on the open descriptor, not on the name.
+    """
+    flags = os.O_RDONLY | getattr(os, "O_NONBLOCK", 0) | getattr(os, "O_BINARY", 0)
+    try:
+        fd = os.open(path, flags)
+    except FileNotFoundError:
+        raise ProjectFileError(f"{path}: no such file") from None
+    except IsADirectoryError:
+        raise ProjectFileError(f"{path} is a folder, not a project file") from None
+    except OSError as exc:
+        raise ProjectFileError(f"{path} cannot be read: {exc.strerror or exc}") from None
+    try:
+        mode = os.fstat(fd).st_mode
+        if not stat.S_ISREG(mode):
+            kind = ("a folder" if stat.S_ISDIR(mode) else "a named pipe" if stat.S_ISFIFO(mode)
+                    else "a device" if stat.S_ISCHR(mode) or stat.S_ISBLK(mode)
+                    else "a socket" if stat.S_ISSOCK(mode) else "not a regular file")
+            raise ProjectFileError(f"{path} is {kind}, not a project file")
+        with os.fdopen(fd, "rb", closefd=False) as fh:
+            return fh.read()
+    except OSError as exc:
+        raise ProjectFileError(f"{path} cannot be read: {exc.strerror or exc}") from None
+    finally:
+        os.close(fd)
+
+
 def load_project(path) -> Project:
     """Read a project file. Refuses, in one line, anything but a complete valid project."""
     path = Path(path)
-    try:
-        raw = path.read_bytes()
-    except FileNotFoundError:
-        raise ProjectFileError(f"{path}: no such file") from None
-    except OSError as exc:
-        raise ProjectFileError(f"{path} cannot be read: {exc.strerror or exc}") from None
+    raw = _read_regular(path)
     if not raw.strip():
         raise ProjectFileError(f"{path} is empty, not an Ebullio project file")
     try:
@@ -303,44 +367,87 @@ def load_project(path) -> Project:
         raise ProjectFileError(f"{path} is not an Ebullio project file "
                                "(binary data, not UTF-8 text)") from None
     try:
-        data = json.loads(text, object_pairs_hook=_no_duplicates)
+        data = json.loads(text, object_pairs_hook=_no_duplicates, parse_int=_parse_int)
     except json.JSONDecodeError as exc:
         raise ProjectFileError(f"{path} is not a complete Ebullio project file (JSON error at "
                                f"line {exc.lineno} column {exc.colno}: {exc.msg})") from None
     except ProjectFileError as exc:
         raise ProjectFileError(f"{path} is not a valid Ebullio project file: {exc}") from None
+    except RecursionError:
+        raise ProjectFileError(f"{path} is not an Ebullio project file (objects and lists "
+                               f"nested more than {MAX_DEPTH} deep)") from None
+    _check_shape(data, str(path))
     return from_dict(data, source=str(path))
+
+
+#: Suffix of the one temporary file a save writes beside its target: ``.NAME.ebullio-saving``.
+SAVING_SUFFIX = ".ebullio-saving"
+
+
+def saving_name(target) -> str:
+    """The temporary file a save of ``target`` writes first (a hidden name beside it)."""
+    head, tail = os.path.split(os.fspath(target))
+    return os.path.join(head, "." + tail + SAVING_SUFFIX)
+
+
+def _remove_stale(target: str) -> None:
+    """Remove what an interrupted save of ``target`` left: our temporary file, and the
+    randomly named ``.NAME.XXXXXXXX.tmp`` files of versions before 0.2."""
+    folder, name = os.path.split(target)
+    old = re.compile(re.escape("." + name + ".") + r"[A-Za-z0-9_]{8}\.tmp")
+    try:
+        stale = [e.name for e in os.scandir(folder) if old.fullmatch(e.name)]
+    except OSError:
+        stale = []
+    for entry in [os.path.basename(saving_name(target))] + stale:
+        try:
+            os.unlink(os.path.join(folder, entry))
+        except OSError:
+            pass
+
+
+def _escape_surrogates(text: str) -> str:
+    """Lone surrogates (valid in JSON text, not in UTF-8) written as JSON escapes."""
+    return _SURROGATE.sub(lambda m: f"\\u{ord(m.group()):04x}", text)
+
+
+_SURROGATE = re.compile("[\ud800-\udfff]")
 
 
 def save_project(project: Project, path) -> None:
     """Write a project file atomically: the old file stays whole if anything fails.
 
-    The text goes to a temporary file in the same folder, is flushed and fsynced,
-    then replaces the target in one ``os.replace``; the folder is fsynced where the
-    system allows it.
+    The text goes to ``.NAME.ebullio-saving`` in the same folder, is flushed and
+    fsynced, then replaces the target in one ``os.replace``; the folder is fsynced
+    where the system allows it. A temporary file left by an interrupted save is
+    removed by the next save of the same target.
     """
-    payload = dumps(project).encode("utf-8")  # fails before the disk is touched
+    if not isinstance(project, Project):
+        raise TypeError(f"save_project needs a Project, not {type(project).__name__}")
+    payload = _escape_surrogates(dumps(project)).encode("utf-8")  # fails before the disk is touched
     target = os.path.realpath(path)  # save through a symbolic link, not over it
     folder = os.path.dirname(target)
     try:
         mode = os.stat(target).st_mode & 0o7777
     except OSError:
         mode = 0o644
-    tmp = None
+    _remove_stale(target)
+    tmp = saving_name(target)
+    written = False
     try:
-        fd, tmp = tempfile.mkstemp(prefix="." + os.path.basename(target) + ".",
-                                   suffix=".tmp", dir=folder)
+        fd = os.open(tmp, os.O_WRONLY | os.O_CREAT | os.O_EXCL | getattr(os, "O_BINARY", 0), 0o600)
+        written = True
         with os.fdopen(fd, "wb") as f:
             f.write(payload)
             f.flush()
             os.fsync(f.fileno())
         os.chmod(tmp, mode)
         os.replace(tmp, target)
-        tmp = None
+        written = False
     except OSError as exc:
         raise ProjectFileError(f"{path} could not be saved: {exc.strerror or exc}") from exc
     finally:
-        if tmp is not None:
+        if written:
             try:
                 os.unlink(tmp)
             except OSError:

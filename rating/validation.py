@@ -27,6 +27,8 @@ MAX_PASSES = 16
 LAYOUT_ANGLES = (30, 45, 60, 90)
 BAFFLE_CUT = (0.15, 0.45)      # fraction of the shell inner diameter, common practice
 MAX_FOULING = 0.01             # [m^2*K/W]; heavy-fouling TEMA values are below 0.002
+#: The allowed number of increments along the heated length: the one rule for project
+#: files, the command line and ``rating.rate`` (the catalogue's increments field reads it).
 INCREMENTS = (10, 5000)
 TABLE_KEYS = ("T", "cp", "rho", "mu", "k")  # user property table of a heating liquid
 MAX_HEAT_LOSS_PERCENT = 50.0   # [%]; a unit that loses more is not rated as a heat exchanger
@@ -110,6 +112,11 @@ def _choice(name: str, value, choices) -> str:
     if not isinstance(value, str) or value not in choices:
         _fail(name, value, "", "must be one of " + ", ".join(repr(c) for c in choices))
     return value
+
+
+def check_increments(value, name: str = "increments") -> int:
+    """The number of increments, a whole number within INCREMENTS, else an InputError."""
+    return _whole(name, value, *INCREMENTS)
 
 
 def _optional(checker, name, value, *args, **kwargs):
@@ -581,7 +588,8 @@ def check_case(case) -> None:
     if question == "duty_check" and case.required_duty is None:
         _fail("required_duty", None, "", "a duty check needs required_duty > 0 W")
     _optional(_positive, "required_duty", case.required_duty, "W")
-    _optional(_whole, "increments", case.increments, *INCREMENTS)
+    if case.increments is not None:
+        check_increments(case.increments)
     if case.type != "thermosiphon" and case.boiling.mass_flow is None:
         _fail("boiling.mass_flow", None, "", f"required for type {case.type!r} [kg/s] "
               "(only a thermosiphon finds its own flow)")

@@ -50,8 +50,9 @@ def test_case_selection_and_csv(tmp_path, capsys):
     files = list(tmp_path.glob("*.csv"))
     assert len(files) == 1
     lines = files[0].read_text().splitlines()
-    assert lines[0].startswith("z_m,p_Pa,")
-    assert len(lines) - 1 == len(data["cases"][0]["profiles"]["z_m"])
+    assert "qualified engineer" in lines[0]          # the caution, one cell
+    assert lines[1].startswith("z_m,p_Pa,")
+    assert len(lines) - 2 == len(data["cases"][0]["profiles"]["z_m"])
 
 
 def test_error_severity_gives_exit_1(tmp_path, capsys):
