@@ -647,6 +647,19 @@ def _show(v, unit) -> str:
     return format_value(v, "" if unit == "-" else unit)
 
 
+#: A positive value of a field whose hard range is open at zero must be at least this
+#: share of the range's top: anything smaller is a slip of the unit or the exponent, and
+#: values near the floating-point floor (5e-324) overflow the arithmetic.
+SMALLEST_SHARE = 1e-9
+
+
+def smallest(f: InputField) -> float | None:
+    """The least positive value a field open at zero accepts, or None."""
+    if f.hard is None or not f.hard_open[0] or f.hard[0] != 0 or f.hard[1] is None:
+        return None
+    return f.hard[1] * SMALLEST_SHARE
+
+
 def field_problem(f: InputField, value) -> Problem | None:
     """The hard-range problem of one value, or None (kind, finiteness, range)."""
     if value is None:
@@ -671,6 +684,11 @@ def field_problem(f: InputField, value) -> Problem | None:
                     or (hi is not None and (value > hi or (hi_open and value == hi)))):
                 return Problem(f.path, f"{f.path} = {_show(value, f.unit)}: must be "
                                f"{f.range_text()}", "error")
+        least = smallest(f)
+        if least is not None and 0 < value < least:
+            return Problem(f.path, f"{f.path} = {_show(value, f.unit)}: too small to be meant; "
+                           f"must be >= {least:g}{'' if f.unit in ('', '-') else ' ' + f.unit} "
+                           "(check the unit and the exponent)", "error")
         if f.choices is not None and value not in f.choices:
             return Problem(f.path, f"{f.path} = {_show(value, f.unit)}: must be one of "
                            + ", ".join(map(str, f.choices)), "error")

@@ -45,7 +45,7 @@ exit status:
      (one line on standard error, nothing rated, nothing written)
   {EXIT_INTERNAL}  internal error: a fault in Ebullio (one line on standard error)"""
 
-COLD_START = ("A first call takes about 5 to 15 s before the first rating, most of it "
+COLD_START = ("Cold start: a first call takes about 5 to 15 s before the first rating, most of it "
               "loading the fluid-property library (CoolProp); each case then takes "
               "0.1 to 2 s.")
 

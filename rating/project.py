@@ -323,6 +323,39 @@ def _check_shape(data, source: str) -> None:
                 stack.append((item, child, depth + 1))
 
 
+_TOKEN = re.compile(r'"(?:[^"\\]|\\.)*"(\s*:)?|[\[\]{},]')
+
+
+def _shorten(path: str) -> str:
+    return path if len(path) <= 80 else path[:40] + " ... " + path[-30:]
+
+
+def _too_deep(text: str) -> str:
+    """The path at which JSON text too deep for the parser passes MAX_DEPTH."""
+    stack = []  # [key or index] per open object or list
+    for m in _TOKEN.finditer(text):
+        token = m.group()
+        if token in "[{":
+            if len(stack) >= MAX_DEPTH:
+                break
+            stack.append(0 if token == "[" else "")
+        elif token in "]}":
+            if stack:
+                stack.pop()
+        elif token == ",":
+            if stack and isinstance(stack[-1], int):
+                stack[-1] += 1
+        elif m.group(1) and stack:  # a key (a string that is a value is passed over)
+            try:
+                stack[-1] = json.loads(token[:-len(m.group(1))])
+            except ValueError:
+                stack[-1] = "?"
+    path = ""
+    for part in stack:
+        path = f"{path}[{part}]" if isinstance(part, int) else _join(path, part)
+    return path
+
+
 def _read_regular(path: Path) -> bytes:
     """The bytes of a regular file; a folder, named pipe or device is refused at once.
 
@@ -374,8 +407,11 @@ def load_project(path) -> Project:
     except ProjectFileError as exc:
         raise ProjectFileError(f"{path} is not a valid Ebullio project file: {exc}") from None
     except RecursionError:
+        where = _too_deep(text)
         raise ProjectFileError(f"{path} is not an Ebullio project file (objects and lists "
-                               f"nested more than {MAX_DEPTH} deep)") from None
+                               f"nested more than {MAX_DEPTH} deep at "
+                               f"{_shorten(where) or 'the top level'})",
+                               field=where or None) from None
     _check_shape(data, str(path))
     return from_dict(data, source=str(path))
 

@@ -32,6 +32,12 @@ MAX_FOULING = 0.01             # [m^2*K/W]; heavy-fouling TEMA values are below 
 INCREMENTS = (10, 5000)
 TABLE_KEYS = ("T", "cp", "rho", "mu", "k")  # user property table of a heating liquid
 MAX_HEAT_LOSS_PERCENT = 50.0   # [%]; a unit that loses more is not rated as a heat exchanger
+#: Hard ranges of a property table's columns: (unit, lo, hi), wide enough for any liquid
+#: from liquid hydrogen to liquid metals and bitumen (common practice); values beyond them
+#: are typing errors that would overflow the arithmetic.
+TABLE_RANGES = {"T": ("K", 1.0, 2000.0), "cp": ("J/kg/K", 100.0, 1e5),
+                "rho": ("kg/m^3", 10.0, 3e4), "mu": ("Pa*s", 1e-6, 1e3),
+                "k": ("W/m/K", 0.01, 1000.0)}
 
 FOULING_UNIT = "m^2*K/W"
 
@@ -254,8 +260,9 @@ def _check_table(name: str, table) -> None:
         if n is not None and len(column) != n:
             _fail(f"{name}.{key}", column, "", f"must have as many values as {name}.T ({n})")
         n = len(column)
+        unit, lo, hi = TABLE_RANGES[key]
         for i, v in enumerate(column):
-            _positive(f"{name}.{key}[{i}]", v, "")
+            _between(f"{name}.{key}[{i}]", v, unit, lo, hi)
     if any(b <= a for a, b in zip(table["T"], table["T"][1:])):
         _fail(f"{name}.T", table["T"], "", "temperatures must rise strictly")
 

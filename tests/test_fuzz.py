@@ -20,7 +20,7 @@ from hypothesis import strategies as st
 import fuzzing as fz
 
 FAST_EXAMPLES = 150
-FULL_EXAMPLES = 1500
+FULL_EXAMPLES = 1000
 
 _SETTINGS = dict(deadline=None, database=None,
                  suppress_health_check=[HealthCheck.too_slow, HealthCheck.data_too_large])
