@@ -135,6 +135,11 @@ class BoilingStream:
     notation ("Propane[0.95]&n-Butane[0.05]", mole fractions) rated as a pseudo-pure
     fluid, or a user property table along the saturation line (``rating.fluid_table``).
 
+    ``htc_fixed`` [W/m^2/K] replaces the boiling coefficient, or ``htc_factor``
+    multiplies the chosen method's (``rating.adjust``); the same pair on
+    ``HeatingMedium`` acts on the heating side. Each coefficient is on the surface its
+    side wets.
+
     For a thermosiphon (``Case.type = "thermosiphon"``) the stream is the column's:
     ``inlet_pressure`` is the column vapour-space pressure, ``inlet_temperature``
     the column-base liquid temperature (None: saturated at that pressure), and
@@ -149,6 +154,8 @@ class BoilingStream:
     inlet_quality: float | None = None
     fouling_resistance: float = 0.0
     inlet_saturation_temperature: float | None = None
+    htc_fixed: float | None = None
+    htc_factor: float = 1.0
 
     def __post_init__(self):
         from .validation import check_boiling
@@ -180,6 +187,8 @@ class HeatingMedium:
     saturation_temperature: float | None = None
     heat_loss_percent: float = 0.0
     heat_loss: float = 0.0
+    htc_fixed: float | None = None
+    htc_factor: float = 1.0
 
     def __post_init__(self):
         from .validation import check_heating

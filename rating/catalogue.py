@@ -330,6 +330,14 @@ INPUTS: tuple[InputField, ...] = tuple([
     _field("boiling.fouling_resistance", "Fouling resistance, boiling side", "fouling_resistance",
            "boiling", "TEMA-style fouling resistance on the boiling surface",
            hard=(0.0, 0.01), usual=(0.0, 0.002), hard_open=(False, True)),
+    _field("boiling.htc_fixed", "Fixed boiling coefficient", "htc", "boiling",
+           "A known boiling-side film coefficient in place of the methods, in every regime; "
+           "empty: computed. The rating warns that it is set", hard=(0.0, 1e6),
+           usual=(200.0, 50000.0), hard_open=_OPEN_LO),
+    _field("boiling.htc_factor", "Multiplier on the boiling coefficient", "dimensionless",
+           "boiling", "Scales the chosen methods' boiling-side coefficient (to match plant "
+           "data); 1: as computed. The rating warns when it is not 1", hard=(0.05, 20.0),
+           usual=(0.5, 2.0)),
     # --- heating side
     _field("heating.kind", "Heating medium", "choice", "heating",
            "Condensing steam (or another condensing vapour), or a single-phase liquid or gas",
@@ -356,6 +364,13 @@ INPUTS: tuple[InputField, ...] = tuple([
     _field("heating.fouling_resistance", "Fouling resistance, heating side", "fouling_resistance",
            "heating", "TEMA-style fouling resistance on the heating surface",
            hard=(0.0, 0.01), usual=(0.0, 0.002), hard_open=(False, True)),
+    _field("heating.htc_fixed", "Fixed heating coefficient", "htc", "heating",
+           "A known heating-side film coefficient (a vendor's or a test's) in place of the "
+           "method; empty: computed. The rating warns that it is set", hard=(0.0, 1e6),
+           usual=(300.0, 50000.0), hard_open=_OPEN_LO),
+    _field("heating.htc_factor", "Multiplier on the heating coefficient", "dimensionless",
+           "heating", "Scales the heating-side method's coefficient; 1: as computed. The "
+           "rating warns when it is not 1", hard=(0.05, 20.0), usual=(0.5, 2.0)),
     _field("heating.heat_loss_percent", "Heat loss, share of the heating duty", "percent",
            "heating", "Part of the duty the heating side gives up that is lost to ambient "
            "instead of reaching the process; or give a fixed loss", hard=(0.0, 50.0),

@@ -6,6 +6,8 @@
   naming its source.
 * A mixture rated as a pseudo-pure fluid: a warning with its boiling range; a user
   saturation table: a note naming it and its range.
+* A fixed film coefficient or a multiplier on a side's method: first in the method
+  trail, and a warning, so that it is never forgotten in a file.
 * A heat loss: the heating side gives up the process duty plus the loss. Condensing
   steam stays at its temperature, so only the steam condensed grows; a liquid medium
   cools by the larger duty along the march (``LiquidHeating.loss_share``). A fixed
@@ -16,9 +18,10 @@ from __future__ import annotations
 
 import dataclasses
 
+from .adjust import of_side
 from .case import derived_fields
 from .errors import PropertyError
-from .results import RatingWarning
+from .results import MethodUsed, RatingWarning
 
 #: Boiling range [K] from which a mixture's pseudo-pure rating is a warning rather than a
 #: note: beyond a few kelvin the rise of the bubble point along the path and the
@@ -56,6 +59,14 @@ def inputs_shown(case) -> tuple[dict, list[RatingWarning]]:
                 "dimension-defaulted", "warning",
                 f"kettle.{name} was not given: {getattr(case.kettle, name):.4g} m taken from "
                 f"{how}; give the datasheet value to rate the real shell"))
+    for side, part in (("boiling", b), ("heating", hm)):
+        adjust = of_side(part)
+        if adjust.active:
+            warnings.append(RatingWarning(
+                "coefficient-set-by-user", "warning",
+                adjust.describe(f"the {side}-side", "the chosen method") + f" ({side}.htc_"
+                + ("fixed" if adjust.fixed is not None else "factor") + "): the result rests "
+                "on that value"))
     try:
         fluid = make_fluid(b.fluid)
     except PropertyError:
@@ -123,6 +134,12 @@ def _heat_loss_shown(case, result):
 def with_inputs_shown(case, result):
     """The result with the inputs' derived values in its summary and their warnings."""
     summary, warnings = inputs_shown(case)
+    trail = tuple(MethodUsed(f"{side}_coefficient", "user_fixed" if a.fixed is not None
+                             else "user_multiplier", "user input (" + a.describe(
+                                 side, "the chosen method") + ")", a.describe(side, "method"))
+                  for side, a in (("boiling", of_side(case.boiling)),
+                                  ("heating", of_side(case.heating))) if a.active)
+    result = dataclasses.replace(result, methods=trail + result.methods)
     status = result.status
     if status == "ok" and any(w.severity != "info" for w in warnings):
         status = "warnings"

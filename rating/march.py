@@ -33,6 +33,7 @@ from typing import Callable
 
 from scipy.optimize import brentq
 
+from .adjust import Adjustment
 from .correlations import registry
 from .correlations.dimensionless import g
 from .correlations.flow_boiling import flow_boiling_htc
@@ -127,6 +128,8 @@ class BoilingTube:
     flow_boiling_options: dict = field(default_factory=dict)  # fluid-specific constants
     nucleate_inputs: dict = field(default_factory=dict)       # fluid constants (Gorenflo's h0)
     nucleate_options: dict = field(default_factory=dict)
+    boiling_adjust: Adjustment = field(default_factory=Adjustment)  # fixed or scaled (adjust.py)
+    heating_adjust: Adjustment = field(default_factory=Adjustment)
 
     @property
     def G(self) -> float:
@@ -362,11 +365,12 @@ class Marcher:
         sat, x, T_b, single = bulk or self._bulk(P, h)
         regime = self._regime(x)
         T_h = self.heating.temperature(hstate)
-        film = self.heating.film(hstate, T_h, z)
+        film = t.heating_adjust.film(self.heating.film(hstate, T_h, z))
         ratio = t.D_i / t.D_o
         R_fixed = t.fouling_inner + t.wall_resistance_inner + ratio * t.fouling_outer
 
-        T_s_of, films = self._surface_law(sat, x, T_b, regime, single)
+        T_s_of, films = t.boiling_adjust.surface_law(
+            *self._surface_law(sat, x, T_b, regime, single), T_b)
 
         def resid(q):
             return T_h - T_s_of(q) - q * R_fixed - film(q * ratio)
@@ -461,7 +465,7 @@ class Marcher:
         T_h = self.heating.temperature(hstate)
         T_wi = local.T_s + q * t.fouling_inner
         T_wo = T_wi + q * t.wall_resistance_inner
-        htc_h = self.heating.film_htc(hstate, T_h, z, q_o)
+        htc_h = t.heating_adjust.htc(self.heating.film_htc(hstate, T_h, z, q_o))
         for bound, msg in self.heating.out_of_range(hstate, T_h, z, q_o):
             self._note(bound, msg, z)
         q_chf, avail = self._critical_flux(P, x, sat, z)

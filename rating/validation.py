@@ -229,6 +229,21 @@ def _pressure_or_saturation(part, p_name: str, t_name: str, fluid_spec, role: st
     _derive(part, p_name, P_T, f"saturation pressure of {fluid.name} at {T:.6g} K")
 
 
+#: Multipliers on a method's coefficient accepted: beyond them the method is not the
+#: one rating the unit (a fixed coefficient says so plainly).
+HTC_FACTOR = (0.05, 20.0)
+
+
+def _coefficient_override(part) -> None:
+    """A fixed film coefficient or a multiplier on the method, not both."""
+    _optional(_positive, "htc_fixed", part.htc_fixed, "W/m^2/K")
+    _between("htc_factor", part.htc_factor, "", *HTC_FACTOR,
+             note="multiplier on the chosen method's coefficient; 1 leaves it as it is")
+    if part.htc_fixed is not None and part.htc_factor != 1.0:
+        _fail("htc_factor", part.htc_factor, "", "give a fixed coefficient (htc_fixed) or a "
+              "multiplier on the method (htc_factor), not both")
+
+
 def check_boiling(stream) -> None:
     """Fluid, flow, inlet state and fouling of a ``BoilingStream``."""
     from .fluid_table import check_table, is_saturation_table
@@ -240,6 +255,7 @@ def check_boiling(stream) -> None:
     _optional(_positive, "mass_flow", stream.mass_flow, "kg/s")  # required by type: check_case
     _pressure_or_saturation(stream, "inlet_pressure", "inlet_saturation_temperature",
                             stream.fluid, "the pressure at the inlet, or the column's")
+    _coefficient_override(stream)
     _optional(_positive, "inlet_temperature", stream.inlet_temperature, "K")
     _optional(_between, "inlet_quality", stream.inlet_quality, "", 0.0, 1.0, hi_closed=False)
     if stream.inlet_temperature is not None and stream.inlet_quality is not None:
@@ -287,6 +303,7 @@ def check_heating(medium) -> None:
     _between("heat_loss_percent", medium.heat_loss_percent, "%", 0.0, MAX_HEAT_LOSS_PERCENT,
              note="share of the heating side's duty lost to ambient")
     _non_negative("heat_loss", medium.heat_loss, "W")
+    _coefficient_override(medium)
     if medium.heat_loss_percent and medium.heat_loss:
         _fail("heat_loss", medium.heat_loss, "W", "give heat_loss_percent or a fixed heat_loss, "
               "not both")
@@ -604,6 +621,11 @@ def check_case(case) -> None:
         _check_thermosiphon_case(case)
     if case.type == "kettle":
         _check_kettle_case(case)
+        if case.kettle.heating_htc is not None and (case.heating.htc_fixed is not None
+                                                    or case.heating.htc_factor != 1.0):
+            _fail("heating.htc_fixed" if case.heating.htc_fixed is not None else
+                  "heating.htc_factor", case.heating.htc_fixed or case.heating.htc_factor, "",
+                  "kettle.heating_htc already fixes the tube-side coefficient: give one of them")
         if case.heating.kind == "liquid" and (case.heating.heat_loss
                                               or case.heating.heat_loss_percent):
             _fail("heating.heat_loss_percent" if case.heating.heat_loss_percent else

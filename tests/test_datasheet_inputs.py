@@ -347,3 +347,90 @@ def test_a_mixture_rating_warns_about_its_boiling_range():
     warned = [w for w in r.warnings if w.code == "mixture-as-pure-fluid"]
     assert warned and "boiling range" in warned[0].message
     assert r.summary["boiling_range_K"] > 0.5
+
+
+# --------------------------------------------------------------- item 3: fixed or scaled
+
+def with_fields(case, **changes):
+    draft = cat.case_to_draft(case)
+    for path, value in changes.items():
+        draft = cat.set_value(draft, path.replace("__", "."), value)
+    return cat.draft_to_case(draft)
+
+
+def test_fixed_coefficients_on_both_sides_give_the_series_resistance_flux():
+    # Both films fixed: the local flux is (T_h - T_b) / (1/H_b + R_wall + (D_i/D_o)/H_h) on
+    # the inside surface (plane-wall and cylinder resistances in series, Incropera &
+    # DeWitt ch. 3), at every station.
+    import math
+
+    H_b, H_h = 3000.0, 8000.0
+    case = with_fields(sample("pentane-vaporiser.ebullio"), boiling__htc_fixed=H_b,
+                       heating__htc_fixed=H_h, boiling__fouling_resistance=0.0,
+                       heating__fouling_resistance=0.0)
+    r = rating.rate(case)
+    assert r.status != "failed", r.message
+    t = case.tubes
+    d_i, d_o = t.inner_diameter, t.outer_diameter
+    R = 1 / H_b + d_i * math.log(d_o / d_i) / (2 * t.conductivity) + (d_i / d_o) / H_h
+    p = r.profiles
+    for i in range(0, len(p["z_m"]), 5):
+        q = (p["t_heating_K"][i] - p["t_process_K"][i]) / R
+        assert p["heat_flux_W_m2"][i] == pytest.approx(q, rel=1e-5)
+        assert p["htc_boiling_W_m2K"][i] == H_b and p["htc_heating_W_m2K"][i] == H_h
+        assert p["htc_nucleate_W_m2K"][i] is None  # the parts of a fixed value: not computed
+    assert codes(r).count("coefficient-set-by-user") == 2
+    trail = {m.family: m for m in r.methods}
+    assert trail["boiling_coefficient"].name == "user_fixed"
+    assert "3000 W/m^2/K" in trail["heating_coefficient"].reference + \
+        trail["boiling_coefficient"].reference
+
+
+def test_a_multiplier_scales_the_methods_own_value_at_each_station():
+    # Gungor-Winterton (1986) evaluated afresh at a station's state and flux, times 1.3;
+    # the shell side's Bell-Delaware coefficient at the station's temperature, times 0.8.
+    from rating.correlations.flow_boiling import flow_boiling_htc
+    from rating.exchangers.evaporator import heating_side
+    from rating.properties import make_fluid
+
+    case = with_fields(sample("chiller-evaporator.ebullio"), boiling__htc_factor=1.3,
+                       heating__htc_factor=0.8)
+    r = rating.rate(case)
+    assert r.status != "failed", r.message
+    p, t = r.profiles, case.tubes
+    fluid = make_fluid(case.boiling.fluid)
+    G = case.boiling.mass_flow / t.tubes_per_pass / (3.141592653589793 * t.inner_diameter ** 2 / 4)
+    side, _ = heating_side(case)
+    i = len(p["z_m"]) // 2
+    assert p["regime"][i] == "saturated boiling"
+    sat = fluid.saturation(p["p_Pa"][i])
+    avail = dict(sat.as_dict(), G=G, x=p["quality"][i], D=t.inner_diameter)
+    method = flow_boiling_htc(case.methods.flow_boiling, avail, p["heat_flux_W_m2"][i],
+                              sat.dp_sat)
+    assert p["htc_boiling_W_m2K"][i] == pytest.approx(1.3 * method, rel=1e-6)
+    shell = side.shell_result(p["t_heating_K"][i]).htc
+    assert p["htc_heating_W_m2K"][i] == pytest.approx(0.8 * shell, rel=2e-3)
+    assert r.summary["duty_W"] < rating.rate(sample("chiller-evaporator.ebullio")).summary["duty_W"]
+
+
+def test_a_kettle_takes_a_fixed_boiling_coefficient_and_a_heating_multiplier():
+    base = sample("harrow-creek-kettles.ebullio")
+    case = with_fields(base, boiling__htc_fixed=2500.0)
+    r = rating.rate(case)
+    assert r.status != "failed", r.message
+    assert set(r.profiles["htc_boiling_W_m2K"]) == {2500.0}
+    scaled = rating.rate(with_fields(base, heating__htc_factor=0.5))
+    assert scaled.summary["duty_W"] < rating.rate(base).summary["duty_W"]
+    assert "coefficient-set-by-user" in codes(scaled)
+
+
+def test_coefficient_overrides_are_stored_and_refused_when_both_are_given():
+    case = with_fields(sample("pentane-vaporiser.ebullio"), heating__htc_fixed=9000.0)
+    again = from_dict(json.loads(json.dumps(to_dict(case))), type(case))
+    assert again.heating.htc_fixed == 9000.0
+    with pytest.raises(InputError) as info:
+        BoilingStream("Water", 1.0, 2e5, htc_fixed=3000.0, htc_factor=1.2)
+    assert info.value.field == "htc_factor" and "not both" in str(info.value)
+    with pytest.raises(InputError) as info:
+        BoilingStream("Water", 1.0, 2e5, htc_factor=0.0)
+    assert info.value.field == "htc_factor" and ">= 0.05" in str(info.value)

@@ -17,6 +17,7 @@ from __future__ import annotations
 import math
 
 from .. import checks
+from ..adjust import of_side
 from ..correlations import registry
 from ..correlations.flow_boiling import kandlikar_fluid_factor, steiner_taborek_reference
 from ..correlations.pool_boiling import gorenflo_reference_htc, nucleate_fluid_constants
@@ -101,6 +102,7 @@ def boiling_tube(case, fluid) -> BoilingTube:
         else "wojtan_ursenbacher_thome_2005",
         flow_boiling_options=flow_boiling_options(case, fluid),
         nucleate_inputs=nb_inputs, nucleate_options=nb_options,
+        boiling_adjust=of_side(b), heating_adjust=of_side(case.heating),
     )
 
 

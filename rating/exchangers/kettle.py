@@ -88,6 +88,7 @@ from ht.hx import Ntubes_Phadkeb
 from scipy.optimize import brentq
 
 from .. import checks
+from ..adjust import of_side
 from ..correlations import registry
 from ..correlations.dimensionless import g
 from ..correlations.pool_boiling import (bundle_geometry_factor,
@@ -280,7 +281,7 @@ def _setup(case) -> _Kettle:
                               nucleate_inputs=nb_inputs, nucleate_options=nb_options,
                               bundle_factor=k.bundle_boiling_factor, mixture=mixture,
                               boiling_range=k.boiling_range, bundle_max_flux=q_bmax,
-                              range_notes=notes))
+                              range_notes=notes, adjust=of_side(b)))
     mixture_factor = 1.0
     if k.boiling_range > 0.0:
         mix_avail = {"boiling_range": k.boiling_range, "rho_l": sat_v.rho_l, "h_lv": sat_v.h_lv,
@@ -310,7 +311,8 @@ def _setup(case) -> _Kettle:
                             tubes_per_pass=t.tubes_per_pass, condensing=condensing,
                             single_phase_method=case.methods.single_phase_tube,
                             two_phase_friction=case.methods.two_phase_friction,
-                            roughness=t.roughness, fixed_htc=k.heating_htc)
+                            roughness=t.roughness, fixed_htc=k.heating_htc or hm.htc_fixed,
+                            htc_factor=hm.htc_factor)
     return _Kettle(case, t, fluid, sat_v, bands, heating, h_in, inlet_enthalpy(case, fluid),
                    phi_b, q_bmax, q1, mixture_factor, nb_title, count_note)
 

@@ -38,6 +38,7 @@ import math
 
 from scipy.optimize import brentq
 
+from ..adjust import Adjustment
 from ..correlations import registry
 from ..correlations.single_phase import htc_tube_single_phase
 from ..errors import PropertyError
@@ -72,7 +73,8 @@ class InTubeHeating:
     """
 
     def __init__(self, fluid, pressure, mass_flow, *, D_i, tubes_per_pass, condensing,
-                 single_phase_method, two_phase_friction, roughness, fixed_htc=None):
+                 single_phase_method, two_phase_friction, roughness, fixed_htc=None,
+                 htc_factor=1.0):
         self.fluid = fluid
         self.pressure = pressure
         self.mass_flow = mass_flow
@@ -86,6 +88,7 @@ class InTubeHeating:
         self.colebrook = registry.get("colebrook_1939")
         self.roughness = roughness
         self.fixed_htc = fixed_htc
+        self.htc_factor = htc_factor  # a user's multiplier on the correlations
         self.chato_C1 = None
         if condensing:
             # Chato (1962): Nusselt's horizontal-cylinder film with C = 0.555 on the inside
@@ -145,12 +148,13 @@ class InTubeHeating:
         """
         if self.fixed_htc is not None:
             return self.fixed_htc, None
+        f = self.htc_factor
         x = self.quality(h)
-        if x is not None and x >= 0.0:
-            return self._shah(x), self.chato_C1
+        if x is not None and x >= 0.0:  # Chato's htc = C1^(4/3) q^(-1/3): C1 scales as f^(3/4)
+            return f * self._shah(x), self.chato_C1 * f ** 0.75
         s = self._single(self.temperature(h))
-        return htc_tube_single_phase(self.G, self.D_i, s.mu, s.k, s.cp,
-                                     method=self.single_phase_method, heating=False), None
+        return f * htc_tube_single_phase(self.G, self.D_i, s.mu, s.k, s.cp,
+                                         method=self.single_phase_method, heating=False), None
 
     def _shah(self, x):
         avail = self.sat.as_dict()
@@ -233,8 +237,10 @@ class PoolBand:
     """
 
     def __init__(self, fluid, P, *, D_o, nucleate, nucleate_inputs, nucleate_options,
-                 bundle_factor, mixture, boiling_range, bundle_max_flux, range_notes):
+                 bundle_factor, mixture, boiling_range, bundle_max_flux, range_notes,
+                 adjust=Adjustment()):
         self.P = P
+        self.adjust = adjust  # a user's fixed coefficient or multiplier (rating.adjust)
         self.sat = sat = fluid.saturation(P)
         self.T_sat = sat.T_sat
         self.D_o = D_o
@@ -275,6 +281,16 @@ class PoolBand:
 
     def superheat(self, q):
         """(wall superheat [K], htc_b, nucleate part, natural-convection part) at flux q."""
+        found = self._superheat(q)
+        adjust = self.adjust
+        if not adjust.active:
+            return found
+        dT, htc, nb, nc = found
+        if adjust.fixed is not None:
+            return q / adjust.fixed, adjust.fixed, None, None  # parts: not computed
+        return dT / adjust.factor, htc * adjust.factor, nb * adjust.factor, nc * adjust.factor
+
+    def _superheat(self, q):
         if q <= 0.0:
             h_nc = self.natural_convection(0.0)
             return 0.0, h_nc, 0.0, h_nc
