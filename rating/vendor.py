@@ -215,15 +215,14 @@ def _ebullio_value(row: _Row, case, result) -> tuple[float | None, str]:
         return case.required_duty, "the required duty, which this geometry delivers"
     if row.figure in ("circulation_rate", "circulation_ratio") and case.type != "thermosiphon":
         return None, "only a thermosiphon finds its own circulation"
-    if row.figure == "pressure_drop_heating" and case.heating.kind == "steam" \
-            and case.type != "kettle":
-        return None, "the pressure drop of condensing steam on the shell side is not computed"
     if row.figure == "heating_flow" and case.heating.kind != "steam":
         return case.heating.mass_flow, "Ebullio's value is the case's own input"
     value = result.summary.get(row.key)
     if value is None:
         if row.figure == "over_design":
             return None, "over-design needs a required duty (a duty check)"
+        if row.figure == "pressure_drop_heating" and case.heating.kind == "steam":
+            return None, "the pressure drop of condensing steam on the shell side is not computed"
         return None, "not computed for this case"
     return float(value), ""
 

@@ -37,7 +37,7 @@ def result_for(case, **summary):
     """A rated result of ``case`` whose summary holds the given values (SI)."""
     base = {"duty_W": 1.0e6, "area_m2": area_by_hand(case), "u_clean_W_m2K": 2000.0,
             "u_service_W_m2K": 1200.0, "over_design_pct": None, "exit_quality": 0.60,
-            "pressure_drop_boiling_Pa": 4000.0, "pressure_drop_heating_Pa": 0.0,
+            "pressure_drop_boiling_Pa": 4000.0, "pressure_drop_heating_Pa": None,
             "max_heat_flux_W_m2": 60e3, "steam_flow_kg_s": 0.45}
     base.update(summary)
     return Result(case.name, case.type, "ok", "rated", base)

@@ -311,7 +311,7 @@ def march_summary(case, tube, heating, hs_inlet, primary, performance, check) ->
     if hs_inlet is None:
         duty_heating = last.duty  # condensate x latent heat = the heat the steam gave up
         heating_out = heating.T
-        dp_heating = 0.0
+        dp_heating = None   # shell-side condensing steam: not computed (README), never 0
         steam_flow = duty_heating / heating.sat.h_lv
     else:
         co = case.heating.flow_arrangement == "co"

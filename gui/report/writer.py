@@ -1,0 +1,64 @@
+"""Write a rating report (PDF or HTML) of one case or of every case of a project."""
+from __future__ import annotations
+
+import base64
+import datetime as _dt
+import re
+from pathlib import Path
+
+from gui.units import SYSTEMS
+
+from . import content
+from .profiles_csv import write_profiles_csv
+
+SUFFIXES = (".pdf", ".html", ".htm")
+
+
+def _safe(name: str) -> str:
+    return "".join(c if c.isalnum() or c in "-_." else "_" for c in name).strip("_") or "case"
+
+
+def write_report(project, cases, path, units="SI", source_path=None, *, results=None,
+                 profiles_csv=True, when=None) -> list[Path]:
+    """Write the report of ``cases`` (rated now unless ``results`` are given) at ``path``.
+
+    ``path`` ends in .pdf or .html; ``units`` is one of ``gui.units.SYSTEMS``. With
+    ``profiles_csv`` each case's profiles are written beside it as
+    ``<stem>.<n>-<case>.csv`` in the same units. Returns the files written.
+    Raises ``ValueError`` for a bad suffix or unit system, ``OSError`` when a file
+    cannot be written.
+    """
+    path = Path(path)
+    suffix = path.suffix.lower()
+    if suffix not in SUFFIXES:
+        raise ValueError(f"{path.name}: a report ends in .pdf or .html")
+    if units not in SYSTEMS:
+        raise ValueError(f"units = {units!r}: must be one of {', '.join(SYSTEMS)}")
+    if not path.parent.is_dir():
+        raise OSError(f"{path}: the folder {path.parent} does not exist")
+    cases = list(cases)
+    if results is None:
+        import rating
+        results = [rating.rate(c) for c in cases]
+    when = when or _dt.datetime.now(_dt.timezone.utc)
+    report = content.build(project, cases, list(results), units, source_path, when)
+    if suffix == ".pdf":
+        from .pdf import write_pdf
+        write_pdf(report, path, when.strftime("%Y-%m-%d"))
+    else:
+        path.write_text(html_file(report), encoding="utf-8")
+    written = [path]
+    if profiles_csv:
+        for i, result in enumerate(results, 1):
+            if result.profiles:
+                csv_path = path.with_name(f"{path.stem}.{i}-{_safe(result.name)}.csv")
+                written.append(write_profiles_csv(result, csv_path, units))
+    return written
+
+
+def html_file(report) -> str:
+    """The report's HTML with its images embedded: one file to send."""
+    def embed(match):
+        data = report.images[match.group(1)]
+        return f'src="data:image/png;base64,{base64.b64encode(data).decode("ascii")}"'
+    return re.sub(r'src="(fig-[^"]+\.png)"', embed, report.html)
