@@ -183,7 +183,7 @@ def test_a_table_row_is_never_cut_by_a_page_end(tmp_path):
     assert all("No." in t for t in texts)          # the header row repeats on every page
 
 
-def test_command_writes_the_report_and_refuses_a_bad_name(tmp_path):
+def test_command_writes_the_report(tmp_path):
     out = tmp_path / "vendor.pdf"
     proc = subprocess.run([sys.executable, "-m", "gui.report.command",
                            str(SAMPLES / "vendor-proposals.ebullio"), "--report", str(out),
@@ -198,16 +198,18 @@ def test_command_writes_the_report_and_refuses_a_bad_name(tmp_path):
     assert "bar(a)" in whole and "Metric" in whole
     assert "Optimistic, decided by U service" in whole
     assert "thermosiphon" in pages[0].lower() and "kettle" in pages[0].lower()
-    bad = subprocess.run([sys.executable, "-m", "gui.report.command", str(PENTANE),
-                          "--report", str(tmp_path / "r.docx")], cwd=ROOT,
-                         capture_output=True, text=True)
-    assert bad.returncode == 2 and len(bad.stderr.strip().splitlines()) == 1
-    assert ".pdf or .html" in bad.stderr and "Traceback" not in bad.stderr
-    missing = subprocess.run([sys.executable, "-m", "gui.report.command", str(PENTANE),
-                              "--report", str(tmp_path / "no" / "r.pdf"), "--increments", "10"],
-                             cwd=ROOT, capture_output=True, text=True)
-    assert missing.returncode == 2 and "does not exist" in missing.stderr
-    assert len(missing.stderr.strip().splitlines()) == 1
+
+
+def test_command_refuses_a_bad_report_name_in_one_line(tmp_path, capsys):
+    from gui.report.command import main
+
+    for target, words_ in ((tmp_path / "r.docx", ".pdf or .html"),
+                           (tmp_path / "no" / "r.pdf", "does not exist")):
+        code = main([str(PENTANE), "--report", str(target)])
+        err = capsys.readouterr().err
+        assert code == 2 and len(err.strip().splitlines()) == 1, err
+        assert words_ in err and "Traceback" not in err
+        assert not target.exists()
 
 
 def test_write_report_rates_when_given_no_results(tmp_path):
