@@ -203,8 +203,9 @@ def test_command_writes_the_report(tmp_path):
 def test_command_refuses_a_bad_report_name_in_one_line(tmp_path, capsys):
     from gui.report.command import main
 
+    (tmp_path / "a-file").write_text("not a folder")
     for target, words_ in ((tmp_path / "r.docx", ".pdf or .html"),
-                           (tmp_path / "no" / "r.pdf", "does not exist")):
+                           (tmp_path / "a-file" / "r.pdf", "not a folder")):
         code = main([str(PENTANE), "--report", str(target)])
         err = capsys.readouterr().err
         assert code == 2 and len(err.strip().splitlines()) == 1, err
