@@ -31,7 +31,7 @@ import math
 from dataclasses import dataclass, field
 from typing import Callable
 
-from scipy.optimize import brentq
+from .roots import brentq
 
 from .adjust import Adjustment
 from .correlations import registry

@@ -16,7 +16,7 @@ import bisect
 import importlib.resources
 import math
 
-from scipy.optimize import brentq
+from ..roots import brentq
 
 from .registry import register
 

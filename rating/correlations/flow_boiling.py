@@ -13,7 +13,7 @@ The march never needs to know which form a method has: it calls
 ``flow_boiling_htc(name, available, q, dp_sat_of_dT)`` at each station. A
 heat-flux method is called with q; a wall-superheat method is solved for the
 superheat that carries q with ``solve_wall_superheat`` (a bracketed
-``scipy.optimize.brentq`` root, never a fixed-point loop).
+``rating.roots.brentq`` root, never a fixed-point loop).
 
 Common conventions
 ------------------
@@ -37,7 +37,7 @@ from __future__ import annotations
 import math
 from typing import Callable, Mapping
 
-from scipy.optimize import brentq
+from ..roots import brentq
 
 from ..errors import ConvergenceError
 from .dimensionless import (boiling_number, convection_number, froude_liquid_only,
@@ -700,7 +700,7 @@ def solve_wall_superheat(method, available: Mapping[str, float], q: float,
                          dp_sat_of_dT: Callable[[float], float], **options) -> float:
     """Wall superheat dT_sat [K] at which a wall-superheat method carries q.
 
-    Solves htc(dT_sat, dp_sat(dT_sat)) * dT_sat = q with ``scipy.optimize.brentq``
+    Solves htc(dT_sat, dp_sat(dT_sat)) * dT_sat = q with ``rating.roots.brentq`` (Brent)
     on the bracket [0, q/htc(0)]: the residual is -q at zero superheat, and
     since the nucleate term only adds to the convective one, the residual is
     >= 0 at q/htc(0). Should a method break that assumption the upper end is

@@ -21,12 +21,6 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 
-from ht.conv_tube_bank import (
-    baffle_correction_Bell,
-    bundle_bypassing_Bell,
-    laminar_correction_Bell,
-    unequal_baffle_spacing_Bell,
-)
 
 from ..errors import InputError
 from .dimensionless import prandtl
@@ -388,6 +382,7 @@ def _leakage_factors(S_sb, S_tb, S_m):
 
 def _bypass_factors(F_sbp, N_ss, N_tcc, laminar):
     """J_b (ht, HEDH form) and R_b; both 1 when r_ss = N_ss / N_tcc >= 1/2."""
+    from ht.conv_tube_bank import bundle_bypassing_Bell  # ht (and numpy) only when used
     if N_ss / N_tcc >= 0.5:
         return 1.0, 1.0
     J_b = bundle_bypassing_Bell(F_sbp, N_ss, N_tcc, laminar=laminar, method="HEDH")
@@ -460,6 +455,8 @@ def bell_delaware(m_dot, rho, mu, cp, k, shell, *, mu_wall=None):
     Taborek, J. (1983) Heat Exchanger Design Handbook, Vol. 3, section 3.3,
     Hemisphere.
     """
+    from ht.conv_tube_bank import (  # ht (and numpy) only when a shell side is rated
+        baffle_correction_Bell, laminar_correction_Bell, unequal_baffle_spacing_Bell)
     S_m = shell.crossflow_area
     G = m_dot / S_m
     Re = shell.reynolds_crossflow(m_dot, mu)

@@ -7,8 +7,6 @@ from __future__ import annotations
 
 import math
 
-import fluids
-
 from .registry import register, get
 
 
@@ -20,7 +18,8 @@ from .registry import register, get
         "Clamond, D. (2009) Efficient resolution of the Colebrook equation, "
         "Ind. Eng. Chem. Res. 48, 3665-3671, doi:10.1021/ie801626g",
     ),
-    notes="Laminar flow (Re < 2300) returns 64/Re. Delegates to fluids.friction_factor.",
+    notes="Laminar flow (Re < 2300) returns 64/Re. Clamond's explicit solution, as fluids.Clamond "
+          "evaluates it (fast=False).",
 )
 def colebrook_1939(Re, *, relative_roughness=0.0):
     """Darcy friction factor: 64/Re in laminar flow, Colebrook's equation above.
@@ -41,11 +40,27 @@ def colebrook_1939(Re, *, relative_roughness=0.0):
 
     References
     ----------
-    Colebrook (1939); Clamond (2009), through ``fluids.friction_factor``.
+    Colebrook (1939); Clamond (2009), the same arithmetic as ``fluids.Clamond``
+    (checked against it in tests/test_friction_factor.py); not imported from fluids,
+    which would bring numpy into every rating's start-up.
     """
     if Re < 2300.0:
         return 64.0 / Re
-    return fluids.friction_factor(Re=Re, eD=relative_roughness, Method="Clamond")
+    # Clamond (2009): two steps of a third-order iteration on 1/sqrt(f), exact to
+    # machine precision for Re > 10. Constants ln(10)/18.574, ln(ln(10)/5.02), (ln(10)/2)^2.
+    X1 = relative_roughness * Re * 0.1239681863354175460160858261654858382699
+    X2 = math.log(Re) - 0.7793974884556819406441139701653776731705
+    F = X2 - 0.2
+    X1F = X1 + F
+    X1F1 = 1.0 + X1F
+    E = (math.log(X1F) - 0.2) / X1F1
+    F = F - (X1F1 + 0.5 * E) * E * X1F / (X1F1 + E * (1.0 + E / 3.0))
+    X1F = X1 + F
+    X1F1 = 1.0 + X1F
+    E = (math.log(X1F) + F - X2) / X1F1
+    b = X1F1 + E * (1.0 + E / 3.0)
+    F = b / (b * F - (X1F1 + 0.5 * E) * E * X1F)
+    return 1.325474527619599502640416597148504422899 * F * F
 
 
 @register(

@@ -84,8 +84,7 @@ import copy
 import dataclasses
 import math
 
-from ht.hx import Ntubes_Phadkeb
-from scipy.optimize import brentq
+from ..roots import brentq
 
 from .. import checks
 from ..adjust import of_side
@@ -154,6 +153,7 @@ def estimate_tube_count(bundle_diameter, tube_outer_diameter, pitch, layout_angl
     passes : int
         Tube passes [-]
     """
+    from ht.hx import Ntubes_Phadkeb  # ht (and numpy) only when a count is estimated
     return Ntubes_Phadkeb(bundle_diameter, tube_outer_diameter, pitch, passes, layout_angle)
 
 

@@ -36,7 +36,7 @@ from __future__ import annotations
 
 import math
 
-from scipy.optimize import brentq
+from ..roots import brentq
 
 from ..adjust import Adjustment
 from ..correlations import registry

@@ -65,7 +65,7 @@ import itertools
 import math
 from dataclasses import dataclass, field
 
-from scipy.optimize import brentq
+from ..roots import brentq
 
 from .. import checks
 from ..correlations import registry
