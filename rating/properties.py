@@ -410,7 +410,8 @@ class Fluid(_CoolPropBacked):
         self.M = s.molar_mass() * 1000.0
         self.cas = CP.get_fluid_param_string(coolprop_name, "CAS")
         self.T_min, self.T_max, self.P_max = s.Tmin(), s.Tmax(), s.pmax()
-        self.T_triple, self.P_triple = s.Ttriple(), s.p_triple()
+        # keyed, not p_triple(): AbstractState.p_triple is new in CoolProp 8
+        self.T_triple, self.P_triple = s.Ttriple(), s.trivial_keyed_output(CP.iP_triple)
         self._sat: dict[float, SaturationSet] = {}
         self._sat_T: dict[float, SaturationSet] = {}
         self._T_sat: dict[float, float] = {}
