@@ -32,6 +32,13 @@ from .heating import LiquidHeating, SteamHeating, shell_geometry, tube_rows
 #: doubling it moves the duty by well under 0.5 % on the samples (see tests).
 DEFAULT_INCREMENTS = 40
 
+#: Increments of the first march on vertical steam-heated tubes, which only supplies the
+#: condensate film along the tube (as the thermosiphon's scan does): the film law depends
+#: on the film flow to the power -1/3 or less: against a first march at the full count the
+#: duty moves by 1e-5 and a duty check's required area by 0.03 % on the samples (10
+#: increments would move that area by 0.2 %).
+FILM_PROFILE_INCREMENTS = 20
+
 #: How far past the real tube a duty check may march, in tube lengths.
 DUTY_CHECK_LENGTH_FACTOR = 10.0
 
@@ -210,7 +217,8 @@ def rate_evaporator(case, *, increments=None, progress=None, cancel=None) -> Res
         # the condensate film along the tube; the second uses the local film law.
         half = (share[0], 0.5 * share[1])
         heating.use_mean_coefficient()
-        first = Marcher(tube, heating, path, n, progress=prog.part(*half), cancel=cancel).run(
+        first = Marcher(tube, heating, path, min(n, FILM_PROFILE_INCREMENTS),
+                        progress=prog.part(*half), cancel=cancel).run(
             P0, h0, hs_start, stop_duty=stop_duty, max_length=max_len)
         if first.status != "ok":
             return first
