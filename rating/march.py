@@ -378,7 +378,7 @@ class Marcher:
         if T_h <= T_b + 1e-9:
             q = 0.0
         else:
-            q = self._root_flux(resid, (T_h - T_b) / R_fixed)
+            q = self._root_flux(resid, (T_h - T_b) / R_fixed, T_h - T_b)
         T_s = T_s_of(q)
         htc, htc_nb, htc_conv = films(q) if q > 0.0 else (0.0, 0.0, 0.0)
         if regime == "subcooled liquid" and T_s > sat.T_sat:
@@ -387,37 +387,49 @@ class Marcher:
         return _Local(regime, q, T_s, htc, htc_nb, htc_conv, film(q * ratio), x, T_b,
                       sat.T_sat, sat, z)
 
-    def _root_flux(self, resid, q_hi):
-        """The local flux: bracketed root of the series-resistance balance on [0, q_hi].
+    #: The local flux is converged when the secant's next step is below this share of it.
+    _FLUX_RTOL = 1e-9
 
-        resid(0) > 0 and resid falls with q. The flux of the last local solution is
-        the first guess: a narrow bracket around it is widened until it holds the
-        root (neighbouring states differ by a few per cent), else the full one is used.
+    def _root_flux(self, resid, q_hi, drive):
+        """The local flux: root of the series-resistance balance on [0, q_hi].
+
+        resid(0) > 0 and resid falls with q; ``drive`` is the whole temperature
+        difference, resid(q) = drive - (the drops across the resistances at q). From
+        the flux of the last local solution (neighbouring states differ by a few per
+        cent), a first step holds the total resistance at its value there, then secant
+        steps follow (the residual is smooth in q: a few evaluations where a bracketed
+        root took eight). Every evaluation narrows a bracket [lo, hi] that holds the
+        root; a step that would leave it bisects, so the root is never lost.
         """
-        guess = self._q_guess
-        lo, hi = 0.0, q_hi
-        if 0.0 < guess < q_hi:
-            width = 0.03
-            r_lo = None
-            while width < 1.0:
-                a, b = guess * (1.0 - width), min(guess * (1.0 + width), q_hi)
-                r_a = resid(a) if r_lo is None or a != lo else r_lo
-                if r_a <= 0.0:
-                    hi = a
-                    width *= 4.0
-                    continue
-                lo, r_lo = a, r_a
-                r_b = resid(b)
-                if r_b <= 0.0:
-                    hi = b
-                    break
-                lo = b
-                if b >= q_hi:
+        lo, hi, hi_known = 0.0, q_hi, False
+        q = self._q_guess
+        if not 0.0 < q < q_hi:
+            q = 0.5 * q_hi
+        r = resid(q)
+        drop = drive - r
+        q_new = q * drive / drop if drop > 0.0 else 0.5 * q_hi
+        for _ in range(200):
+            if r > 0.0:
+                lo = q
+                if q >= q_hi:
                     return q_hi  # the film resistances are negligible: the wall takes it all
-                width *= 4.0
-        if hi == q_hi and resid(q_hi) > 0.0:
-            return q_hi
-        return brentq(resid, lo, hi, xtol=1e-9 * max(guess, 1.0), rtol=1e-6, maxiter=200)
+            elif r < 0.0:
+                hi, hi_known = q, True
+            else:
+                return q
+            if q_new >= hi:
+                q_new = 0.5 * (lo + hi) if hi_known else hi
+            elif q_new <= lo:
+                q_new = 0.5 * (lo + hi)
+            q_old, r_old = q, r
+            q, r = q_new, resid(q_new)
+            if r == r_old:
+                return q
+            q_new = q - r * (q - q_old) / (r - r_old)
+            tol = self._FLUX_RTOL * q
+            if abs(q_new - q) <= tol or (hi_known and hi - lo <= tol):
+                return q
+        raise RuntimeError(f"the local heat flux did not converge (last {q:.6g} W/m^2)")
 
     # ---- local checks and derived values
     def _critical_flux(self, P, x, sat, z):
