@@ -656,10 +656,11 @@ class Marcher:
                     raise Cancelled()
                 step = min(dz, z_end - z, self._stable_step(local, bulk, hs, dz))
                 end = self._step(z, step, P, h, hs, n_par, local, bulk)
-                event, end_local = self._event(z, step, end, local, duty, stop_duty)
+                event, end_local, f_end = self._event(z, step, end, local, duty, stop_duty)
                 if event is not None:
                     step, end, end_local = self._locate(event, z, step, P, h, hs, n_par, local,
-                                                        bulk, duty, stop_duty)
+                                                        bulk, duty, stop_duty, end, end_local,
+                                                        f_end)
                 P1, h1, hs1, dQ, dpf = end
                 z, P, h, hs, duty = z + step, P1, h1, hs1, duty + dQ
                 self._hs = hs
@@ -741,57 +742,97 @@ class Marcher:
     # start of the increment and >= 0 where the event has happened.
     _SATURATION_TARGET = 1e-9   # land just past x = 0, so the next station is saturated
 
-    def _event_value(self, event, end, duty, stop_duty, end_local):
+    def _event_value(self, event, end, duty, stop_duty, sat1, local1):
+        """The event's function at the end state of an increment (see above). The
+        saturation events need only the saturation set at the end, dryout the end's
+        local solution."""
         if event == "duty":
             return (duty + end[3] - stop_duty) / stop_duty
-        if event == "saturation":
-            return end_local[0][1] - self._SATURATION_TARGET
-        if event == "dry vapour":
-            return end_local[0][1] - 1.0 - self._SATURATION_TARGET
-        return self._dryout_margin(end_local[1])[0]
+        if event == "dryout":
+            return self._dryout_margin(local1)[0]
+        x1 = (end[1] - sat1.h_l) / sat1.h_lv
+        return x1 - self._SATURATION_TARGET - (1.0 if event == "dry vapour" else 0.0)
 
     def _event(self, z, step, end, local, duty, stop_duty):
-        """The first event inside the increment just computed, or the end's local solution."""
+        """The first event inside the increment just computed.
+
+        Returns (event or None, the end's (bulk, local) or None, the event function at
+        the end); without an event the end's local solution is the next station's.
+        """
         if stop_duty is not None and duty + end[3] >= stop_duty:
-            return "duty", None
+            return "duty", None, self._event_value("duty", end, duty, stop_duty, None, None)
         P1, h1, hs1 = end[0], end[1], end[2]
         bulk1 = self._bulk(P1, h1)
-        if local.x < 0.0 <= bulk1[1] - self._SATURATION_TARGET:
-            return "saturation", None
-        if local.x < 1.0 <= bulk1[1] - self._SATURATION_TARGET:
-            return "dry vapour", None
+        x1 = bulk1[1] - self._SATURATION_TARGET
+        if local.x < 0.0 <= x1:
+            return "saturation", None, x1
+        if local.x < 1.0 <= x1:
+            return "dry vapour", None, x1 - 1.0
         local1 = self.solve_local(z + step, P1, h1, hs1, bulk1)
-        if not self.dried_out and bulk1[1] < 1.0 and self._dryout_margin(local1)[0] >= 0.0:
-            return "dryout", None
-        return None, (bulk1, local1)
+        if not self.dried_out and bulk1[1] < 1.0:
+            margin = self._dryout_margin(local1)[0]
+            if margin >= 0.0:
+                return "dryout", (bulk1, local1), margin
+        return None, (bulk1, local1), None
 
-    def _locate(self, event, z, step, P, h, hs, n_par, local, bulk, duty, stop_duty):
-        """Shorten the increment so that it ends on the event (bracketed root on its length)."""
-        cache = {}
+    def _event_at_start(self, event, local, duty, stop_duty):
+        """The event function at the start of the increment (< 0: not yet happened)."""
+        if event == "duty":
+            return (duty - stop_duty) / stop_duty
+        if event == "dryout":
+            return self._dryout_margin(local)[0]
+        return local.x - self._SATURATION_TARGET - (1.0 if event == "dry vapour" else 0.0)
 
-        def f(length):
-            end = self._step(z, length, P, h, hs, n_par, local, bulk)
-            end_local = None
-            if event != "duty":
-                bulk1 = self._bulk(end[0], end[1])
-                end_local = (bulk1, self.solve_local(z + length, end[0], end[1], end[2], bulk1))
-            cache[length] = (end, end_local)
-            return self._event_value(event, end, duty, stop_duty, end_local)
+    #: An increment that ends on an event ends within this share of it past the event.
+    _EVENT_XTOL = 2e-7
 
-        if f(step) <= 0.0:  # the event sits at the very end of the increment
-            return (step,) + cache[step]
-        length = 0.0
-        if f(0.0) < 0.0:
-            length = brentq(f, 0.0, step, xtol=1e-7 * step, rtol=1e-10, maxiter=100)
-        # End on the event's side of the root, so the event has happened at the station.
-        nudge = 2e-7 * step  # twice the root tolerance
-        for _ in range(40):
-            if f(length) >= 0.0:
+    def _locate(self, event, z, step, P, h, hs, n_par, local, bulk, duty, stop_duty, end,
+                end_local, f_end):
+        """Shorten the increment so that it ends on the event, just past it.
+
+        Regula falsi with the Illinois modification on the increment's length, from
+        the event function's values at both ends of the increment already computed
+        (nothing is evaluated twice); each trial length is one midpoint step. The
+        bracket [lo, hi] keeps the event's side at hi, and the increment ends at hi
+        once the bracket is narrower than ``_EVENT_XTOL`` of the increment.
+        """
+        if f_end <= 0.0:   # the event sits at the very end of the increment
+            return step, end, end_local
+        tol = 0.5 * self._EVENT_XTOL * step
+        lo, f_lo = 0.0, self._event_at_start(event, local, duty, stop_duty)
+        hi, f_hi, hi_end, hi_local = step, f_end, end, end_local
+        if f_lo >= 0.0:    # already there at the start (within the root tolerances)
+            lo, f_lo = 0.0, -abs(f_end) * 1e-12
+        side = 0
+        for _ in range(100):
+            if hi - lo <= 2.0 * tol:
                 break
-            length, nudge = min(step, length + nudge), 2.0 * nudge
-        else:
-            length = step  # f(step) > 0 is known
-        return (length,) + cache[length]
+            length = (lo * f_hi - hi * f_lo) / (f_hi - f_lo)
+            length = min(max(length, lo + tol), hi - tol)
+            trial = self._step(z, length, P, h, hs, n_par, local, bulk)
+            trial_local = sat1 = None
+            if event == "dryout":
+                bulk1 = self._bulk(trial[0], trial[1])
+                trial_local = (bulk1, self.solve_local(z + length, trial[0], trial[1],
+                                                       trial[2], bulk1))
+            elif event != "duty":
+                sat1 = self.tube.fluid.saturation(trial[0])
+            f = self._event_value(event, trial, duty, stop_duty, sat1,
+                                  trial_local[1] if trial_local else None)
+            if f >= 0.0:
+                hi, f_hi, hi_end, hi_local = length, f, trial, trial_local
+                if side == 1:
+                    f_lo *= 0.5
+                side = 1
+            else:
+                lo, f_lo = length, f
+                if side == -1:
+                    f_hi *= 0.5
+                side = -1
+        if hi_local is None and event != "duty":
+            bulk1 = self._bulk(hi_end[0], hi_end[1])
+            hi_local = (bulk1, self.solve_local(z + hi, hi_end[0], hi_end[1], hi_end[2], bulk1))
+        return hi, hi_end, hi_local
 
     def _note_ranges_at(self, z, local: _Local, bulk):
         """Validity bounds of every method evaluated at this station (once per bound)."""
