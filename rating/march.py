@@ -205,6 +205,53 @@ class _Local:
     z: float = 0.0
 
 
+#: The local flux is converged when the secant's next step is below this share of it.
+FLUX_RTOL = 1e-9
+
+
+def flux_root(resid, q_hi, drive, guess):
+    """The local flux: root of a series-resistance balance on [0, q_hi].
+
+    resid(0) > 0 and resid falls with q; ``drive`` is the whole temperature
+    difference, resid(q) = drive - (the drops across the resistances at q). From
+    ``guess`` (the flux of the last local solution: neighbouring states differ by a
+    few per cent), a first step holds the total resistance at its value there, then
+    secant steps follow (the residual is smooth in q: about three evaluations where a
+    bracketed root took eight). Every evaluation narrows a bracket [lo, hi] that holds
+    the root; a step that would leave it bisects, so the root is never lost. Returns
+    q_hi when resid(q_hi) > 0 (the film resistances are negligible).
+    """
+    lo, hi, hi_known = 0.0, q_hi, False
+    q = guess
+    if not 0.0 < q < q_hi:
+        q = 0.5 * q_hi
+    r = resid(q)
+    drop = drive - r
+    q_new = q * drive / drop if drop > 0.0 else 0.5 * q_hi
+    for _ in range(200):
+        if r > 0.0:
+            lo = q
+            if q >= q_hi:
+                return q_hi
+        elif r < 0.0:
+            hi, hi_known = q, True
+        else:
+            return q
+        if q_new >= hi:
+            q_new = 0.5 * (lo + hi) if hi_known else hi
+        elif q_new <= lo:
+            q_new = 0.5 * (lo + hi)
+        q_old, r_old = q, r
+        q, r = q_new, resid(q_new)
+        if r == r_old:
+            return q
+        q_new = q - r * (q - q_old) / (r - r_old)
+        tol = FLUX_RTOL * q
+        if abs(q_new - q) <= tol or (hi_known and hi - lo <= tol):
+            return q
+    raise RuntimeError(f"the local heat flux did not converge (last {q:.6g} W/m^2)")
+
+
 class Marcher:
     """Stepper along one heated path; ``run`` drives it to the end.
 
@@ -387,49 +434,9 @@ class Marcher:
         return _Local(regime, q, T_s, htc, htc_nb, htc_conv, film(q * ratio), x, T_b,
                       sat.T_sat, sat, z)
 
-    #: The local flux is converged when the secant's next step is below this share of it.
-    _FLUX_RTOL = 1e-9
-
     def _root_flux(self, resid, q_hi, drive):
-        """The local flux: root of the series-resistance balance on [0, q_hi].
-
-        resid(0) > 0 and resid falls with q; ``drive`` is the whole temperature
-        difference, resid(q) = drive - (the drops across the resistances at q). From
-        the flux of the last local solution (neighbouring states differ by a few per
-        cent), a first step holds the total resistance at its value there, then secant
-        steps follow (the residual is smooth in q: a few evaluations where a bracketed
-        root took eight). Every evaluation narrows a bracket [lo, hi] that holds the
-        root; a step that would leave it bisects, so the root is never lost.
-        """
-        lo, hi, hi_known = 0.0, q_hi, False
-        q = self._q_guess
-        if not 0.0 < q < q_hi:
-            q = 0.5 * q_hi
-        r = resid(q)
-        drop = drive - r
-        q_new = q * drive / drop if drop > 0.0 else 0.5 * q_hi
-        for _ in range(200):
-            if r > 0.0:
-                lo = q
-                if q >= q_hi:
-                    return q_hi  # the film resistances are negligible: the wall takes it all
-            elif r < 0.0:
-                hi, hi_known = q, True
-            else:
-                return q
-            if q_new >= hi:
-                q_new = 0.5 * (lo + hi) if hi_known else hi
-            elif q_new <= lo:
-                q_new = 0.5 * (lo + hi)
-            q_old, r_old = q, r
-            q, r = q_new, resid(q_new)
-            if r == r_old:
-                return q
-            q_new = q - r * (q - q_old) / (r - r_old)
-            tol = self._FLUX_RTOL * q
-            if abs(q_new - q) <= tol or (hi_known and hi - lo <= tol):
-                return q
-        raise RuntimeError(f"the local heat flux did not converge (last {q:.6g} W/m^2)")
+        """The local flux from the last one as the first guess (``flux_root``)."""
+        return flux_root(resid, q_hi, drive, self._q_guess)
 
     # ---- local checks and derived values
     def _critical_flux(self, P, x, sat, z):

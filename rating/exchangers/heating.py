@@ -108,11 +108,62 @@ class SteamHeating(HeatingSide):
         return [(m.split(" = ", 1)[0], m) for m in self.method.out_of_range(avail)]
 
 
+class EnthalpyTable:
+    """T(h) of a single-phase medium at one pressure, from nodes every ``STEP`` kelvin.
+
+    A (P, h) flash is several times dearer than a (P, T) one, and a march asks for
+    the medium's temperature at every trial state; cubic Hermite interpolation of
+    T(h) with the exact slope 1/cp at each node is accurate to about 1e-6 K at this
+    node spacing (tests/test_property_tables.py), while the energy balance itself
+    is kept in enthalpy, exactly. ``build`` returns None where the range leaves the
+    fluid's data; ``temperature`` and ``cp`` return None outside the table.
+    """
+
+    #: Node spacing [K].
+    STEP = 2.0
+
+    def __init__(self, hs, Ts, cps):
+        self.hs, self.Ts, self.cps = hs, Ts, cps
+        self.h_min, self.h_max = hs[0], hs[-1]
+
+    @classmethod
+    def build(cls, fluid, pressure, T_lo, T_hi):
+        n = max(2, int(math.ceil((T_hi - T_lo) / cls.STEP)) + 1)
+        Ts = [T_lo + (T_hi - T_lo) * i / (n - 1) for i in range(n)]
+        try:
+            states = [fluid.single_phase(pressure, T) for T in Ts]
+        except PropertyError:
+            return None  # the range leaves the fluid's data: use the flash throughout
+        hs = [st.h for st in states]
+        if any(b <= a for a, b in zip(hs, hs[1:])):
+            return None
+        return cls(hs, Ts, [st.cp for st in states])
+
+    def temperature(self, h):
+        hs = self.hs
+        if not self.h_min <= h <= self.h_max:
+            return None
+        Ts, cps = self.Ts, self.cps
+        i = min(bisect.bisect_right(hs, h), len(hs) - 1) - 1
+        dh = hs[i + 1] - hs[i]
+        u = (h - hs[i]) / dh
+        h00 = (1 + 2 * u) * (1 - u) ** 2
+        h10 = u * (1 - u) ** 2
+        h01 = u * u * (3 - 2 * u)
+        h11 = u * u * (u - 1)
+        return h00 * Ts[i] + h10 * dh / cps[i] + h01 * Ts[i + 1] + h11 * dh / cps[i + 1]
+
+    def cp(self, h):
+        """The specific heat at the node at or below h (a step function) [J/kg/K]."""
+        hs = self.hs
+        if not self.h_min <= h <= self.h_max:
+            return None
+        return self.cps[min(bisect.bisect_right(hs, h), len(hs) - 1) - 1]
+
+
 class LiquidHeating(HeatingSide):
     """A single-phase liquid or gas on the shell side, co- or counter-current."""
 
-    #: Node spacing of the temperature-enthalpy table [K].
-    TABLE_STEP = 2.0
     #: Share of the duty the medium gives up that is lost to ambient (heat loss).
     loss_share = 0.0
 
@@ -127,42 +178,12 @@ class LiquidHeating(HeatingSide):
         self.method = registry.get(method)
         self._htc_cache: dict[float, float] = {}
         self._range_checked: set[float] = set()
-        self._table = self._build_table(*temperature_range) if temperature_range else None
-
-    def _build_table(self, T_lo, T_hi):
-        """Nodes (h, T, cp) over the temperatures the medium can take.
-
-        A (P, h) flash is several times dearer than a (P, T) one, and the march asks
-        for the temperature at every trial state; cubic Hermite interpolation of T(h)
-        with the exact slope 1/cp at each node is accurate to about 1e-6 K at this
-        node spacing, while the energy balance itself is kept in enthalpy, exactly.
-        """
-        n = max(2, int(math.ceil((T_hi - T_lo) / self.TABLE_STEP)) + 1)
-        Ts = [T_lo + (T_hi - T_lo) * i / (n - 1) for i in range(n)]
-        try:
-            states = [self.fluid.single_phase(self.pressure, T) for T in Ts]
-            hs = [self.fluid.enthalpy(self.pressure, T) for T in Ts]
-        except PropertyError:
-            return None  # the range leaves the fluid's data: use the flash throughout
-        if any(b <= a for a, b in zip(hs, hs[1:])):
-            return None
-        return hs, Ts, [st.cp for st in states]
+        self._table = (EnthalpyTable.build(fluid, pressure, *temperature_range)
+                       if temperature_range else None)
 
     def temperature(self, h):
-        table = self._table
-        if table is not None:
-            hs, Ts, cps = table
-            if hs[0] <= h <= hs[-1]:
-                i = min(bisect.bisect_right(hs, h), len(hs) - 1) - 1
-                dh = hs[i + 1] - hs[i]
-                u = (h - hs[i]) / dh
-                h00 = (1 + 2 * u) * (1 - u) ** 2
-                h10 = u * (1 - u) ** 2
-                h01 = u * u * (3 - 2 * u)
-                h11 = u * u * (u - 1)
-                return (h00 * Ts[i] + h10 * dh / cps[i] + h01 * Ts[i + 1]
-                        + h11 * dh / cps[i + 1])
-        return self.fluid.temperature(self.pressure, h)
+        T = self._table.temperature(h) if self._table is not None else None
+        return self.fluid.temperature(self.pressure, h) if T is None else T
 
     def shell_result(self, T):
         s = self.fluid.single_phase(self.pressure, T)
@@ -198,11 +219,10 @@ class LiquidHeating(HeatingSide):
         return [(m.split(" = ", 1)[0], m) for m in self.method.out_of_range(avail)]
 
     def capacity_rate(self, h):
-        table = self._table
-        if table is not None and table[0][0] <= h <= table[0][-1]:
-            i = min(bisect.bisect_right(table[0], h), len(table[0]) - 1) - 1
-            return self.mass_flow * table[2][i]
-        return self.mass_flow * self.fluid.single_phase(self.pressure, self.temperature(h)).cp
+        cp = self._table.cp(h) if self._table is not None else None
+        if cp is None:
+            cp = self.fluid.single_phase(self.pressure, self.temperature(h)).cp
+        return self.mass_flow * cp
 
 
 def shell_geometry(case) -> ShellGeometry:

@@ -42,8 +42,9 @@ from ..adjust import Adjustment
 from ..correlations import registry
 from ..correlations.single_phase import htc_tube_single_phase
 from ..errors import PropertyError
-from ..march import Cancelled, MarchOutcome, Marcher, Station
+from ..march import Cancelled, MarchOutcome, Marcher, Station, flux_root
 from ..properties import SinglePhaseState
+from .heating import EnthalpyTable
 
 #: Temperature step of the finite difference for the liquid's expansion coefficient [K].
 _BETA_STEP = 1.0
@@ -99,6 +100,23 @@ class InTubeHeating:
         self.range_notes: dict[str, float] = {}
         self._T: dict[float, float] = {}
         self._props: dict[float, object] = {}
+        self._table = None
+        self._table_for = None
+
+    def tabulate(self, T_lo, h_hi):
+        """Take the liquid's (or the condensate's) temperature from a T(h) table from
+        T_lo up to the enthalpy h_hi (the inlet's, or the condensate's saturation),
+        instead of a (P, h) flash per state (``heating.EnthalpyTable``)."""
+        if self.condensing:
+            h_hi = self.sat.h_l
+        if self._table_for == (T_lo, h_hi):
+            return
+        self._table_for = (T_lo, h_hi)
+        T_lo = max(T_lo, getattr(self.fluid, "T_min", T_lo))
+        # the condensate's table ends just below saturation, where a (P, T) state is liquid
+        T_hi = self.sat.T_sat - 1e-3 if self.condensing else self.temperature(h_hi)
+        self._table = EnthalpyTable.build(self.fluid, self.pressure, T_lo, T_hi) \
+            if T_hi > T_lo else None
 
     @property
     def G(self) -> float:
@@ -114,6 +132,10 @@ class InTubeHeating:
     def temperature(self, h) -> float:
         if self.condensing and h >= self.sat.h_l:
             return self.sat.T_sat
+        if self._table is not None:
+            T = self._table.temperature(h)
+            if T is not None:
+                return T
         T = self._T.get(h)
         if T is None:
             if len(self._T) > 4096:
@@ -259,6 +281,7 @@ class PoolBand:
         rho_2 = fluid.single_phase(P, T - 2.0 * _BETA_STEP).rho
         self.beta = max((rho_2 - rho_1) / (_BETA_STEP * 0.5 * (rho_1 + rho_2)), 0.0)
         self.nc = registry.get("churchill_chu_1975_cylinder")
+        self._last = None
 
     def natural_convection(self, dT) -> float:
         s = self.sat
@@ -281,7 +304,12 @@ class PoolBand:
 
     def superheat(self, q):
         """(wall superheat [K], htc_b, nucleate part, natural-convection part) at flux q."""
-        found = self._superheat(q)
+        last = self._last
+        if last is not None and last[0] == q:  # the local solve asks again for its root
+            found = last[1]
+        else:
+            found = self._superheat(q)
+            self._last = (q, found)
         adjust = self.adjust
         if not adjust.active:
             return found
@@ -385,6 +413,7 @@ class KettleMarch:
         self.progress = progress
         self.cancel = cancel
         self.per_length = math.pi * D_o * tubes_per_pass     # outer area per metre of path
+        self._q_guess = 0.0                                   # the last local flux
         self.pass_of_station: list[int] = []
 
     # ---- local solve
@@ -409,7 +438,7 @@ class KettleMarch:
         def resid(q):
             return dT - q * R - heating.film_drop(film, q * ratio) - band.superheat(q)[0]
 
-        q = brentq(resid, 0.0, dT / R, xtol=1e-3, rtol=1e-9, maxiter=200)
+        q = self._q_guess = flux_root(resid, dT / R, dT, self._q_guess)
         return q, T_h, film, band.superheat(q)
 
     def _station(self, z, h, band, loc, duty):
@@ -442,6 +471,8 @@ class KettleMarch:
         z, h, duty = 0.0, h0, 0.0
         total = self.passes * self.L
         try:
+            # the medium cools from h0 towards the coldest pool, not below it
+            self.heating.tabulate(min(b.T_sat for b in self.bands), h0)
             for k, band in enumerate(self.bands):
                 z_end = (k + 1) * self.L
                 dz = self.L / self.n_per_pass
