@@ -314,11 +314,11 @@ class Marcher:
         """Saturation set, quality, bulk temperature and (outside the dome) the
         single-phase (rho, mu, k, cp) at (P, h)."""
         fluid = self.tube.fluid
-        sat = fluid.saturation(P)
+        sat = fluid.saturation_interpolated(P)   # a new pressure at every trial state
         x = (h - sat.h_l) / sat.h_lv
         if 0.0 <= x <= 1.0:
             return sat, x, sat.T_sat, None
-        state = fluid.at_ph(P, h)
+        state = fluid.at_ph(P, h, sat)
         return sat, x, state.T, (state.rho, state.mu, state.k, state.cp)
 
     def _note_range(self, method, available, z):
@@ -823,7 +823,7 @@ class Marcher:
                 trial_local = (bulk1, self.solve_local(z + length, trial[0], trial[1],
                                                        trial[2], bulk1))
             elif event != "duty":
-                sat1 = self.tube.fluid.saturation(trial[0])
+                sat1 = self.tube.fluid.saturation_interpolated(trial[0])
             f = self._event_value(event, trial, duty, stop_duty, sat1,
                                   trial_local[1] if trial_local else None)
             if f >= 0.0:

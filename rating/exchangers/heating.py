@@ -113,9 +113,11 @@ class EnthalpyTable:
 
     A (P, h) flash is several times dearer than a (P, T) one, and a march asks for
     the medium's temperature at every trial state; cubic Hermite interpolation of
-    T(h) with the exact slope 1/cp at each node is accurate to about 1e-6 K at this
-    node spacing (tests/test_property_tables.py), while the energy balance itself
-    is kept in enthalpy, exactly. ``build`` returns None where the range leaves the
+    T(h) with the slope 1/cp at each node is within 2e-8 K of CoolProp's inversion
+    for water, 3e-5 K for MEG-30 % and 2e-4 K for TVP1 (incompressible liquids,
+    whose h also carries P/rho, so that 1/cp is not quite dT/dh) at this node
+    spacing (tests/test_property_tables.py); the energy balance itself is kept in
+    enthalpy, exactly. ``build`` returns None where the range leaves the
     fluid's data; ``temperature`` and ``cp`` return None outside the table.
     """
 
