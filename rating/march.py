@@ -289,6 +289,15 @@ class Marcher:
             self.void_options["variant"] = "II" if tube.vertical else "horizontal"
         if "D" in self.void.options:
             self.void_options["D"] = tube.D_i
+        # CoolProp fluids interpolate the saturation sets of the march's pressures
+        # (properties.SaturationInterpolation); a user's table is its own interpolation.
+        fluid = tube.fluid
+        if hasattr(fluid, "saturation_interpolated"):
+            self._saturation = fluid.saturation_interpolated
+            self._at_ph = fluid.at_ph
+        else:
+            self._saturation = fluid.saturation
+            self._at_ph = lambda P, h, sat: fluid.at_ph(P, h)
         self.range_notes: dict[str, float] = {}
         self._range_bounds: set[str] = set()
         self._sat_dicts: dict[float, dict] = {}
@@ -313,12 +322,11 @@ class Marcher:
     def _bulk(self, P, h):
         """Saturation set, quality, bulk temperature and (outside the dome) the
         single-phase (rho, mu, k, cp) at (P, h)."""
-        fluid = self.tube.fluid
-        sat = fluid.saturation_interpolated(P)   # a new pressure at every trial state
+        sat = self._saturation(P)   # a new pressure at every trial state
         x = (h - sat.h_l) / sat.h_lv
         if 0.0 <= x <= 1.0:
             return sat, x, sat.T_sat, None
-        state = fluid.at_ph(P, h, sat)
+        state = self._at_ph(P, h, sat)
         return sat, x, state.T, (state.rho, state.mu, state.k, state.cp)
 
     def _note_range(self, method, available, z):
@@ -823,7 +831,7 @@ class Marcher:
                 trial_local = (bulk1, self.solve_local(z + length, trial[0], trial[1],
                                                        trial[2], bulk1))
             elif event != "duty":
-                sat1 = self.tube.fluid.saturation_interpolated(trial[0])
+                sat1 = self._saturation(trial[0])
             f = self._event_value(event, trial, duty, stop_duty, sat1,
                                   trial_local[1] if trial_local else None)
             if f >= 0.0:

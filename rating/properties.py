@@ -418,13 +418,13 @@ class Fluid(_CoolPropBacked):
         self._sat_T: dict[float, SaturationSet] = {}
         self._T_sat: dict[float, float] = {}
         self._P_sat: dict[float, float] = {}
-        self._table = SaturationTable(self)
+        self._table = SaturationInterpolation(self)
 
     def clear_cache(self) -> None:
         """Empty the saturation caches (benchmarks, or after changing global CoolProp settings)."""
         for cache in (self._sat, self._sat_T, self._T_sat, self._P_sat):
             cache.clear()
-        self._table = SaturationTable(self)
+        self._table = SaturationInterpolation(self)
 
     # ----- saturation
     def _check_sat_P(self, P: float) -> None:
@@ -506,12 +506,12 @@ class Fluid(_CoolPropBacked):
         return _remember(self._sat, P, sat)
 
     def saturation_interpolated(self, P: float) -> SaturationSet:
-        """Saturation properties at P from a table of CoolProp sets (``SaturationTable``).
+        """Saturation properties at P from a table of CoolProp sets (``SaturationInterpolation``).
 
         For the march, which asks for a new pressure at every trial state: the
         table's nodes are computed once (per fluid and thread, until ``clear_cache``)
         where the march goes, and the interpolation error, measured on every
-        interval before it is used, is within ``SaturationTable.TOLERANCE``; where it
+        interval before it is used, is within ``SaturationInterpolation.TOLERANCE``; where it
         would not be (near the critical point) the set is CoolProp's own.
 
         Parameters
@@ -702,7 +702,7 @@ _LOG_FIELDS = frozenset({"rho_v", "sigma"})     # interpolated in ln: close to p
 assert [i for i, n in enumerate(_TABLE_FIELDS) if n in _LOG_FIELDS] == [2, 11]  # _evaluate
 
 
-class SaturationTable:
+class SaturationInterpolation:
     """Saturation sets interpolated in ln P between CoolProp sets at fixed nodes.
 
     Nodes sit at ln P = k ``STEP`` (every 2 % in pressure) and are computed when an
@@ -1057,7 +1057,7 @@ def make_fluid(spec) -> Fluid | IncompressibleLiquid | TableLiquid:
     IncompressibleLiquid. A dict ``{"table": {"T": [...], "cp": [...], "rho":
     [...], "mu": [...], "k": [...]}, "name": "..."}`` -> TableLiquid. A boiling
     fluid's saturation table (a dict with "h_lv", see ``rating.fluid_table``) ->
-    SaturationTable; a mixture "A[0.95]&B[0.05]" -> a pseudo-pure SaturationTable.
+    SaturationInterpolation; a mixture "A[0.95]&B[0.05]" -> a pseudo-pure SaturationInterpolation.
 
     CoolProp-backed objects are cached per name in a thread-local dict: repeated
     calls in one thread return the same object, another thread gets its own
@@ -1081,7 +1081,7 @@ def make_fluid(spec) -> Fluid | IncompressibleLiquid | TableLiquid:
     from . import fluid_table  # boiling fluids given as a saturation table or a mixture
 
     if fluid_table.is_saturation_table(spec):
-        return fluid_table.SaturationTable(spec)
+        return fluid_table.SaturationInterpolation(spec)
     if isinstance(spec, dict):
         if "table" not in spec:
             raise InputError("a fluid given as a dict needs a 'table' entry", field="fluid")

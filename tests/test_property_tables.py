@@ -1,6 +1,6 @@
 """Interpolated properties against the property library itself (CoolProp's PropsSI).
 
-The march takes its saturation sets from ``rating.properties.SaturationTable``
+The march takes its saturation sets from ``rating.properties.SaturationInterpolation``
 (cubic in ln P between CoolProp sets every 2 % in pressure, each interval checked
 at its midpoint before use) and the heating medium's temperature from
 ``rating.exchangers.heating.EnthalpyTable`` (cubic Hermite T(h) every 2 K). Both
@@ -16,7 +16,7 @@ import pytest
 from CoolProp.CoolProp import PropsSI
 
 from rating.exchangers.heating import EnthalpyTable
-from rating.properties import Fluid, IncompressibleLiquid, SaturationTable, make_fluid
+from rating.properties import Fluid, IncompressibleLiquid, SaturationInterpolation, make_fluid
 
 # field of SaturationSet -> (PropsSI output, quality)
 PROPS = {
@@ -48,7 +48,7 @@ def test_interpolated_sets_within_the_tolerance(name):
         P = fluid.P_crit * math.exp(rng.uniform(math.log(0.005), math.log(0.85)))
         errors = _relative_errors(fluid.saturation_interpolated(P), fluid.coolprop_name, P)
         worst = max(worst, max(errors.values()))
-    assert worst <= SaturationTable.TOLERANCE
+    assert worst <= SaturationInterpolation.TOLERANCE
 
 
 def test_derived_fields_follow_the_interpolated_ones():
