@@ -1057,7 +1057,7 @@ def make_fluid(spec) -> Fluid | IncompressibleLiquid | TableLiquid:
     IncompressibleLiquid. A dict ``{"table": {"T": [...], "cp": [...], "rho":
     [...], "mu": [...], "k": [...]}, "name": "..."}`` -> TableLiquid. A boiling
     fluid's saturation table (a dict with "h_lv", see ``rating.fluid_table``) ->
-    SaturationInterpolation; a mixture "A[0.95]&B[0.05]" -> a pseudo-pure SaturationInterpolation.
+    SaturationTable; a mixture "A[0.95]&B[0.05]" -> a pseudo-pure SaturationTable.
 
     CoolProp-backed objects are cached per name in a thread-local dict: repeated
     calls in one thread return the same object, another thread gets its own
@@ -1081,7 +1081,7 @@ def make_fluid(spec) -> Fluid | IncompressibleLiquid | TableLiquid:
     from . import fluid_table  # boiling fluids given as a saturation table or a mixture
 
     if fluid_table.is_saturation_table(spec):
-        return fluid_table.SaturationInterpolation(spec)
+        return fluid_table.SaturationTable(spec)
     if isinstance(spec, dict):
         if "table" not in spec:
             raise InputError("a fluid given as a dict needs a 'table' entry", field="fluid")
