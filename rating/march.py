@@ -823,6 +823,8 @@ class Marcher:
             if hi - lo <= 2.0 * tol:
                 break
             length = (lo * f_hi - hi * f_lo) / (f_hi - f_lo)
+            if not math.isfinite(length):   # an infinite margin (no critical flux left)
+                length = 0.5 * (lo + hi)
             length = min(max(length, lo + tol), hi - tol)
             trial = self._step(z, length, P, h, hs, n_par, local, bulk)
             trial_local = sat1 = None

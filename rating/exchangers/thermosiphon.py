@@ -341,7 +341,8 @@ def _crossings(loop: _Loop, scan: list[LoopPoint]) -> list[Crossing]:
             return r
 
         f(a.W), f(b.W)
-        W = _root(f, a.W, b.W, COARSE_TOLERANCE * loop.available)
+        W = _root(f, a.W, b.W, COARSE_TOLERANCE * loop.available,
+                  jump=DISCONTINUITY * loop.available)
         point = loop.evaluate(W, a.increments)
         if not point.parts or abs(point.residual) > DISCONTINUITY * loop.available:
             continue  # the residual jumps here (a march that stops), not a balance
@@ -377,12 +378,30 @@ class _Converged(Exception):
         self.W = W
 
 
-def _root(f, lo, hi, tol):
-    """Brent's bracketed root of f on [lo, hi], stopped as soon as |f| <= tol [Pa]."""
+#: A bracket this narrow (relative) whose ends both stay further than DISCONTINUITY
+#: from a balance holds a jump of the residual (a march that stops), not a root.
+JUMP_WIDTH = 1e-4
+
+
+def _root(f, lo, hi, tol, jump=None):
+    """Brent's bracketed root of f on [lo, hi], stopped as soon as |f| <= tol [Pa].
+
+    With ``jump`` [Pa], it also stops once two flows of opposite residual lie within
+    JUMP_WIDTH of each other with both residuals above ``jump``: a continuous
+    residual cannot change that much over so small a step, so the bracket holds a
+    discontinuity, which Brent's method would otherwise bisect to the last digit.
+    """
+    seen = []
+
     def g(W):
         r = f(W)
         if abs(r) <= tol:
             raise _Converged(W)
+        if jump is not None and abs(r) > jump:
+            for W2, r2 in seen:
+                if (r2 > 0.0) != (r > 0.0) and abs(W2 - W) <= JUMP_WIDTH * W:
+                    raise _Converged(W)
+            seen.append((W, r))
         return r
 
     try:
@@ -449,7 +468,8 @@ def _fine_root(loop, W, slope, n, lower, upper, fallback):
         f_lo, f_hi = f(lo), f(hi)
         if lo == hi or (math.isfinite(f_lo) and math.isfinite(f_hi)
                         and (f_lo > 0.0) != (f_hi > 0.0)):
-            return (lo if lo == hi else _root(f, lo, hi, BALANCE_TOLERANCE)), seen
+            return (lo if lo == hi else _root(f, lo, hi, BALANCE_TOLERANCE,
+                                              jump=DISCONTINUITY * loop.available)), seen
     return None, seen
 
 
