@@ -526,10 +526,8 @@ class Fluid(_CoolPropBacked):
         sat : SaturationSet
             Saturated liquid and vapour properties (SI units, see SaturationSet)
         """
-        sat = self._sat.get(P)
-        if sat is None:
-            sat = self._table.at(P)
-        return sat
+        # never the exact cache: the answer must not depend on what was asked before
+        return self._table.at(P)
 
     def saturation_at(self, T: float) -> SaturationSet:
         """Saturation properties at temperature T (cached per T).
