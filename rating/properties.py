@@ -669,8 +669,8 @@ class Fluid(_CoolPropBacked):
         """T at (P, h) outside the dome by Newton steps on (P, T) flashes, or None.
 
         A (P, T) flash costs a third to a quarter of a (P, h) one; from the saturated
-        phase's cp, two or three reach h within 1e-10 h_lv (about 1e-8 K). The state
-        is left at the answer. None (use the (P, h) flash) if a step would cross the
+        phase's cp, two to four reach h within 1e-12 h_lv (about 1e-10 K). The state
+        is left at the last flash, that close to the answer. None (use the (P, h) flash) if a step would cross the
         saturation temperature or leave the fluid's range, or the flash finds the
         other phase.
         """
@@ -678,7 +678,7 @@ class Fluid(_CoolPropBacked):
         liquid = x < 0.0
         T_sat = sat.T_sat
         T = T_sat + ((h - sat.h_l) / sat.cp_l if liquid else (h - sat.h_v) / sat.cp_v)
-        tol = 1e-10 * sat.h_lv
+        tol = 1e-12 * sat.h_lv
         try:
             for _ in range(8):
                 if ((T >= T_sat) if liquid else (T <= T_sat)) or not self.T_min <= T <= self.T_max:
@@ -687,9 +687,10 @@ class Fluid(_CoolPropBacked):
                 if _PHASE.get(int(s.phase())) != ("liquid" if liquid else "gas"):
                     return None
                 dh = h - s.hmass()
+                step = dh / s.cpmass()
                 if abs(dh) <= tol:
-                    return T
-                T += dh / s.cpmass()
+                    return T + step   # the state, at T, is within 1e-12 h_lv of h
+                T += step
         except ValueError:
             return None
         return None
@@ -713,6 +714,11 @@ class Fluid(_CoolPropBacked):
             sat = self.saturation(P)
             if sat.h_l <= h <= sat.h_v:
                 return sat.T_sat
+            x = (h - sat.h_l) / sat.h_lv
+            T = self._newton_pt(P, h, sat, x) if abs(x) > _NEWTON_MIN_X else None
+            if T is not None:   # as at_ph finds it
+                self._check_result_T(T, P, h)
+                return T
         return self._flash_ph(P, h)
 
 
