@@ -1,0 +1,94 @@
+"""``python -m gui.screenshots OUTDIR [--size 1280x800]``: pictures of the window to look at.
+
+Renders the main window offscreen: the start page, then every sample (its first
+case rated) in each unit system, the circulation tab of the thermosiphon samples
+and the side-by-side view of a sample's two cases. Writes one PNG per view.
+"""
+from __future__ import annotations
+
+import argparse
+import os
+import sys
+import tempfile
+import time
+from pathlib import Path
+
+
+def _wait(app, condition, timeout=120.0):
+    end = time.monotonic() + timeout
+    while not condition() and time.monotonic() < end:
+        app.processEvents()
+        time.sleep(0.02)
+    for _ in range(5):
+        app.processEvents()
+
+
+def main(argv=None) -> int:
+    p = argparse.ArgumentParser(prog="python -m gui.screenshots", description=__doc__.splitlines()[0])
+    p.add_argument("outdir")
+    p.add_argument("--size", default="1280x800", help="window size, WIDTHxHEIGHT")
+    p.add_argument("--only", help="only samples whose file name contains this")
+    args = p.parse_args(argv)
+    os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
+    # settings and autosaves of these pictures go to a scratch folder, not the user's
+    scratch = tempfile.mkdtemp(prefix="ebullio-shots-")
+    os.environ["XDG_DATA_HOME"] = scratch
+    os.environ["XDG_CONFIG_HOME"] = scratch
+    from PySide6.QtWidgets import QApplication
+
+    app = QApplication.instance() or QApplication([sys.argv[0]])
+    app.setOrganizationName("EbullioScreenshots")
+    app.setApplicationName("EbullioScreenshots")
+    from . import units
+    from .mainwindow import MainWindow, sample_files
+
+    out = Path(args.outdir)
+    out.mkdir(parents=True, exist_ok=True)
+    w, h = (int(v) for v in args.size.lower().split("x"))
+    suffix = "" if (w, h) == (1280, 800) else f"-{w}x{h}"
+    written = []
+
+    def shot(window, name):
+        app.processEvents()
+        path = out / f"{name}{suffix}.png"
+        window.grab().save(str(path))
+        written.append(path)
+
+    window = MainWindow(first_start_caution=False)
+    window.resize(w, h)
+    window.show()
+    _wait(app, lambda: True)
+    shot(window, "start-page")
+    for sample in sample_files():
+        if args.only and args.only not in sample.name:
+            continue
+        window.doc.undo.setClean()
+        window.open_path(sample)
+        first = window.current_id
+        _wait(app, lambda: window.runner.state(first).status not in ("rating", "not rated", "stale"))
+        for system in units.SYSTEMS:
+            window.set_system(system)
+            shot(window, f"{sample.stem}-{system}")
+        if window.doc.entries[0].type == "thermosiphon":
+            window.tabs.setCurrentIndex(1)
+            shot(window, f"{sample.stem}-circulation")
+            window.tabs.setCurrentIndex(0)
+        if len(window.doc.entries) > 1:
+            second = window.doc.entries[1].id
+            window.runner.rate(second)
+            _wait(app, lambda: window.runner.state(second).status not in ("rating", "not rated"))
+            window.compare_to(str(second))
+            shot(window, f"{sample.stem}-compared")
+            window.tabs.setCurrentIndex(2)
+            shot(window, f"{sample.stem}-side-by-side")
+            window.tabs.setCurrentIndex(0)
+            window.compare_to("")
+    window.doc.undo.setClean()
+    window.close()
+    for path in written:
+        print(path)
+    return 0
+
+
+if __name__ == "__main__":
+    sys.exit(main())

@@ -1,0 +1,210 @@
+"""A drawing of the unit to scale, redrawn as the geometry is edited.
+
+It reads the draft's geometry (SI) and draws it with one scale for both
+directions: the tubes and shell of an evaporator, the column, reboiler and lines of
+a thermosiphon with the column level, the end view of a kettle with its bundle,
+liquid at the weir and freeboard. A dimension that is not given yet is left out;
+the drawing never invents a number.
+"""
+from __future__ import annotations
+
+from PySide6.QtCore import QPointF, QRectF, Qt
+from PySide6.QtGui import QColor, QFont, QPainter, QPen
+from PySide6.QtWidgets import QSizePolicy, QWidget
+
+from rating import catalogue
+
+from . import units
+from .style import INK, OKABE_ITO as C
+
+LIQUID = QColor("#cfe3f3")
+STEEL = QColor("#5b6770")
+
+
+def _num(draft, path):
+    try:
+        v = catalogue.get_value(draft, path)
+    except (KeyError, TypeError, AttributeError):
+        return None
+    return float(v) if isinstance(v, (int, float)) and not isinstance(v, bool) and v > 0 else None
+
+
+class UnitSketch(QWidget):
+    def __init__(self, parent=None):
+        super().__init__(parent)
+        self.draft: dict = {}
+        self.system = "SI"
+        self.setMinimumHeight(150)
+        self.setSizePolicy(QSizePolicy.Expanding, QSizePolicy.Fixed)
+        self.setFixedHeight(170)
+
+    def show_draft(self, draft, system):
+        self.draft, self.system = draft, system
+        self.update()
+
+    def _len(self, metres):
+        return f"{units.format_value(metres, 'length', self.system, 3)} {units.unit_label('length', self.system)}"
+
+    def paintEvent(self, event):
+        p = QPainter(self)
+        p.setRenderHint(QPainter.Antialiasing)
+        p.fillRect(self.rect(), QColor("white"))
+        f = QFont(self.font())
+        f.setPointSizeF(max(7.0, f.pointSizeF() * 0.85))
+        p.setFont(f)
+        kind = self.draft.get("type")
+        box = QRectF(self.rect()).adjusted(8, 8, -8, -8)
+        try:
+            drawn = {"evaporator": self._tubes, "thermosiphon": self._thermosiphon,
+                     "kettle": self._kettle}.get(kind, lambda *_: False)(p, box)
+        except (ValueError, ZeroDivisionError, OverflowError):
+            drawn = False
+        if not drawn:
+            p.setPen(QColor("#777777"))
+            p.drawText(box, Qt.AlignCenter, "the drawing follows once the geometry is given")
+        p.setPen(QColor("#777777"))
+        p.drawText(box, Qt.AlignRight | Qt.AlignBottom, "to scale")
+        p.end()
+
+    # --- in-tube evaporator: a side view of the bundle in its shell
+    def _tubes(self, p, box):
+        d = self.draft
+        L, do, n = _num(d, "tubes.length"), _num(d, "tubes.outer_diameter"), _num(d, "tubes.count")
+        if not (L and do):
+            return False
+        pitch = _num(d, "tubes.pitch") or 1.25 * do
+        shell = _num(d, "shell.inner_diameter") or ((n or 1) ** 0.5 * pitch * 1.1 + do)
+        vertical = catalogue.get_value(d, "tubes.orientation") != "horizontal"
+        long_, wide = (box.height() - 18, box.width() - 120) if vertical else (box.width() - 90, box.height() - 30)
+        s = min(long_ / L, wide / shell)
+        lw, sw = L * s, shell * s
+        if vertical:
+            r = QRectF(box.center().x() - sw / 2, box.top() + 4, sw, lw)
+        else:
+            r = QRectF(box.left() + 40, box.center().y() - sw / 2, lw, sw)
+        p.setPen(QPen(STEEL, 1.6))
+        p.setBrush(QColor("#f4f6f8"))
+        p.drawRect(r)
+        rows = max(1, min(9, int(shell / pitch)))
+        p.setPen(QPen(QColor(C["blue"]), max(1.0, do * s)))
+        for i in range(rows):
+            t = (i + 0.5) / rows
+            if vertical:
+                x = r.left() + t * r.width()
+                p.drawLine(QPointF(x, r.top()), QPointF(x, r.bottom()))
+            else:
+                y = r.top() + t * r.height()
+                p.drawLine(QPointF(r.left(), y), QPointF(r.right(), y))
+        p.setPen(INK)
+        if vertical:
+            p.drawText(QPointF(r.right() + 6, r.center().y()), f"L = {self._len(L)}")
+            p.drawText(QPointF(r.right() + 6, r.center().y() + 14), f"shell {self._len(shell)}")
+            p.drawText(QPointF(box.left(), box.top() + 10), f"{int(n) if n else '?'} tubes, vertical")
+        else:
+            p.drawText(QPointF(r.left(), r.bottom() + 14), f"L = {self._len(L)}, shell {self._len(shell)}, "
+                                                           f"{int(n) if n else '?'} tubes, horizontal")
+        return True
+
+    # --- thermosiphon: column, reboiler, inlet and return lines, column level
+    def _thermosiphon(self, p, box):
+        d = self.draft
+        L = _num(d, "tubes.length")
+        level = _num(d, "thermosiphon.liquid_level")
+        rise = _num(d, "thermosiphon.return_line_rise") or 0.0
+        if not L:
+            return False
+        shell = _num(d, "shell.inner_diameter") or L / 6
+        top = L + rise + max(0.5, 0.25 * L)
+        height = max(top, level or 0) + 0.3
+        s = (box.height() - 10) / height
+        base_y = box.bottom() - 4 - 0.15 * s
+        col_w = max(0.8, shell * 1.2) * s
+        col = QRectF(box.left() + 30, base_y - height * s + 0.3 * s, col_w, height * s - 0.15 * s)
+        reb = QRectF(col.right() + max(40.0, 1.5 * s), base_y - L * s, shell * s, L * s)
+
+        def y(z):
+            return base_y - z * s
+        # column and its liquid
+        p.setPen(QPen(STEEL, 1.6))
+        p.setBrush(QColor("#f4f6f8"))
+        p.drawRect(col)
+        if level:
+            liq = QRectF(col.left(), y(level), col.width(), col.bottom() - y(level))
+            p.fillRect(liq.intersected(col), LIQUID)
+            p.setPen(QPen(QColor(C["blue"]), 1.4, Qt.DashLine))
+            p.drawLine(QPointF(col.left() - 12, y(level)), QPointF(reb.right() + 12, y(level)))
+            p.setPen(INK)
+            p.drawText(QPointF(reb.right() + 16, y(level) + 4), f"level {self._len(level)}")
+        # reboiler
+        p.setPen(QPen(STEEL, 1.6))
+        p.setBrush(QColor("#f4f6f8"))
+        p.drawRect(reb)
+        p.setPen(QPen(QColor(C["blue"]), 1.0))
+        for i in range(5):
+            x = reb.left() + (i + 0.5) / 5 * reb.width()
+            p.drawLine(QPointF(x, reb.top()), QPointF(x, reb.bottom()))
+        # lines: inlet from the column base to the bottom channel, return from the top
+        p.setPen(QPen(QColor(C["orange"]), 2.0))
+        p.drawPolyline([QPointF(col.center().x(), col.bottom()), QPointF(col.center().x(), col.bottom() + 3),
+                        QPointF(reb.center().x(), col.bottom() + 3), QPointF(reb.center().x(), reb.bottom())])
+        p.setPen(QPen(QColor(C["vermillion"]), 2.0))
+        ret_y = y(L + rise)
+        p.drawPolyline([QPointF(reb.center().x(), reb.top()), QPointF(reb.center().x(), ret_y),
+                        QPointF(col.right(), ret_y)])
+        p.setPen(INK)
+        p.drawText(QPointF(reb.right() + 16, reb.center().y()), f"tubes {self._len(L)}")
+        p.drawText(QPointF(col.left(), box.top() + 10), "column")
+        p.setPen(QColor("#777777"))
+        p.drawLine(QPointF(col.left() - 12, base_y), QPointF(reb.right() + 12, base_y))
+        p.drawText(QPointF(reb.right() + 16, base_y + 4), "bottom tube sheet")
+        return True
+
+    # --- kettle: the end view of the shell, the bundle, the liquid up to the weir
+    def _kettle(self, p, box):
+        d = self.draft
+        D = _num(d, "kettle.kettle_diameter")
+        port = _num(d, "kettle.port_diameter")
+        bundle = _num(d, "kettle.bundle_diameter")
+        weir = _num(d, "kettle.weir_height")
+        if not D:
+            return False
+        s = (box.height() - 8) / D
+        left = box.left() + 20
+        bottom = box.bottom() - 2
+        shell = QRectF(left, bottom - D * s, D * s, D * s)
+        cx = shell.center().x()
+
+        def y(z):
+            return bottom - z * s
+        p.setPen(QPen(STEEL, 1.8))
+        p.setBrush(QColor("#f4f6f8"))
+        p.drawEllipse(shell)
+        if weir:
+            p.save()
+            from PySide6.QtGui import QPainterPath
+            clip = QPainterPath()
+            clip.addEllipse(shell)
+            p.setClipPath(clip)
+            p.fillRect(QRectF(shell.left(), y(weir), shell.width(), bottom - y(weir)), LIQUID)
+            p.restore()
+            p.setPen(QPen(QColor(C["blue"]), 1.4, Qt.DashLine))
+            p.drawLine(QPointF(shell.left() - 6, y(weir)), QPointF(shell.right() + 10, y(weir)))
+            p.setPen(INK)
+            p.drawText(QPointF(shell.right() + 14, y(weir) + 4), f"weir {self._len(weir)}")
+        if port:
+            p.setPen(QPen(STEEL, 1.0, Qt.DotLine))
+            p.setBrush(Qt.NoBrush)
+            p.drawEllipse(QRectF(cx - port * s / 2, bottom - port * s, port * s, port * s))
+            if bundle:
+                b0 = 0.5 * (port - bundle)
+                p.setPen(QPen(QColor(C["vermillion"]), 1.4))
+                p.setBrush(QColor(C["vermillion"]).lighter(190))
+                p.drawEllipse(QRectF(cx - bundle * s / 2, y(b0 + bundle), bundle * s, bundle * s))
+                p.setPen(INK)
+                p.drawText(QPointF(shell.right() + 14, y(b0 + bundle) + 4),
+                           f"bundle {self._len(bundle)}")
+        p.setPen(INK)
+        p.drawText(QPointF(shell.right() + 14, shell.top() + 12), f"kettle {self._len(D)}")
+        if port:
+            p.drawText(QPointF(shell.right() + 14, bottom - 2), f"port {self._len(port)}")
+        return True

@@ -1,0 +1,62 @@
+"""The one-line answer to "does this unit do the duty, with what margin, where does it
+fail first?", in words an engineer can paste into an e-mail.
+
+It only reads the result: summary figures (labels and quantities from the engine's
+catalogue), warnings and status. No physics here.
+"""
+from __future__ import annotations
+
+from rating import catalogue
+
+from . import units
+
+
+def figure(result, key, system, digits=4):
+    """'1,234 kW' of a summary key in the unit system; None when the key was not computed."""
+    value = result.summary.get(key) if result is not None else None
+    if value is None or key not in catalogue.SUMMARY:
+        return None
+    q = catalogue.SUMMARY[key].quantity
+    unit = units.unit_label(q, system)
+    text = units.format_value(value, q, system, digits)
+    return f"{text} {unit}".strip() if unit not in ("-", "") else text
+
+
+def verdict(result, system: str, *, message: str = "") -> str:
+    """One sentence; ``message`` is the reason a rating failed, when it did."""
+    if result is None or result.status in ("failed", "cancelled"):
+        why = message or (result.message if result is not None else "")
+        return f"Not rated: {why}" if why else "Not rated yet."
+    s = result.summary
+    parts = []
+    over = s.get("over_design_pct")
+    required = figure(result, "required_duty_W", system)
+    if over is not None:
+        target = f"the required duty{f' of {required}' if required else ''}"
+        if over >= 0:
+            parts.append(f"Meets {target} with {over:.0f} % over-design")
+        else:
+            parts.append(f"Falls short of {target} by {-over:.0f} %")
+    else:
+        duty = figure(result, "duty_W", system)
+        parts.append(f"Delivers {duty}" if duty else "Rated")
+    exit_x = s.get("exit_quality")
+    if exit_x is not None:
+        parts[-1] += f" (exit vapour quality {exit_x:.3g})"
+    dry = s.get("dryout_z_m")
+    if dry is not None:
+        parts.append(f"dries out at z = {figure(result, 'dryout_z_m', system, 3)}")
+    circ = s.get("circulation_ratio")
+    if circ is not None:
+        parts.append(f"circulation ratio {circ:.3g}")
+    chf = s.get("max_chf_ratio")
+    if chf is not None and dry is None:
+        parts.append(f"heat flux at most {chf * 100:.0f} % of the critical flux")
+    serious = [w for w in result.warnings if w.severity in ("warning", "error")]
+    if serious:
+        placed = [w.z_m for w in serious if w.z_m is not None]
+        where = (f", the first at z = {units.format_value(min(placed), 'length', system, 3)} "
+                 f"{units.unit_label('length', system)}") if placed else ""
+        n = len(serious)
+        parts.append(f"{n} warning{'s' if n > 1 else ''}{where}")
+    return "; ".join(parts) + "."

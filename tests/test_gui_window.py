@@ -1,0 +1,283 @@
+"""The desktop window driven as a user drives it (pytest-qt on real widgets).
+
+Each test opens a sample, types into the datasheet or uses a command, waits for the
+runner's signal and checks what the window shows against the engine's own result or
+an independent figure (unit definitions, the file on disk).
+"""
+from __future__ import annotations
+
+import math
+
+import numpy as np
+import pytest
+from PySide6.QtCore import Qt
+
+from gui_helpers import (QUICK, RATING_TIMEOUT_MS, open_rated, scratch, set_text,  # noqa: F401
+                         window)
+from rating import catalogue
+
+FOOT = 0.3048          # m, exact (international yard and pound agreement, 1959)
+PSI = 6894.757293168   # Pa per lbf/in^2 (NIST SP 811, appendix B.8)
+
+
+def test_edit_rerates_and_the_verdict_and_a_plotted_line_follow(window, qtbot):
+    w = window
+    before = open_rated(qtbot, w).result
+    verdict_before = w.verdict.text()
+    x0, y0 = w.along.line_data("t_wall_inner_K")
+    with qtbot.waitSignal(w.runner.resultArrived, timeout=RATING_TIMEOUT_MS):
+        set_text(qtbot, w, "boiling.mass_flow", "3")
+    after = w.runner.state(w.current_id).result
+    assert after is not before and not w.runner.state(w.current_id).stale
+    # the draft took the typed value (kg/s is the mass-flow unit of SI and metric)
+    assert catalogue.get_value(w.doc.entry(w.current_id).draft, "boiling.mass_flow") == pytest.approx(3.0)
+    assert after.summary["duty_W"] != before.summary["duty_W"]
+    assert w.verdict.text() != verdict_before
+    # the plotted wall temperature is the new result's, in the window's units
+    x1, y1 = w.along.line_data("t_wall_inner_K")
+    from gui import units
+    expected = [units.to_display(v, "temperature", w.system) for v in after.profiles["t_wall_inner_K"]]
+    np.testing.assert_allclose(y1, expected, rtol=1e-9)
+    assert len(x1) != len(x0) or not np.allclose(y1, y0)
+
+
+def test_invalid_entry_shows_its_message_beside_the_field_and_keeps_the_last_result_stale(window, qtbot):
+    w = window
+    good = open_rated(qtbot, w).result
+    duty_text = w.figures.value("duty_W")
+    y_before = w.along.line_data("heat_flux_W_m2")[1].copy()
+    set_text(qtbot, w, "tubes.length", "-2")
+    qtbot.waitUntil(lambda: w.runner.state(w.current_id).status == "invalid input",
+                    timeout=RATING_TIMEOUT_MS)
+    message = w.current_form().message("tubes.length")
+    assert message, "no message beside the field"
+    # the message names the field and the rule (the engine's own words)
+    problems = [p for p in catalogue.draft_problems(w.doc.entry(w.current_id).draft)
+                if p.path == "tubes.length"]
+    assert problems and problems[0].message in message
+    st = w.runner.state(w.current_id)
+    assert st.result is good and st.stale
+    assert "stale" in w.verdict.text()
+    assert w.figures.value("duty_W") == duty_text
+    np.testing.assert_array_equal(w.along.line_data("heat_flux_W_m2")[1], y_before)
+
+
+def test_switching_units_converts_the_display_and_leaves_the_stored_values(window, qtbot):
+    w = window
+    open_rated(qtbot, w)
+    draft_before = w.doc.entry(w.current_id).draft
+    length = catalogue.get_value(draft_before, "tubes.length")
+    pressure = catalogue.get_value(draft_before, "boiling.inlet_pressure")
+    w.set_system("US")
+    form = w.current_form()
+    shown = float(form.editor("tubes.length").text().replace(",", ""))
+    assert shown == pytest.approx(length / FOOT, rel=1e-5)
+    shown_p = float(form.editor("boiling.inlet_pressure").text().replace(",", ""))
+    assert shown_p == pytest.approx(pressure / PSI, rel=1e-5)
+    assert "ft" in form.rows["tubes.length"].unit.text()
+    w.set_system("SI")
+    assert float(form.editor("tubes.length").text()) == pytest.approx(length, rel=1e-6)
+    assert w.doc.entry(w.current_id).draft == draft_before
+    assert not w.doc.dirty
+    # the plots follow: the z axis ends at the heated length in the shown unit
+    w.set_system("US")
+    x, _ = w.along.line_data("t_sat_K")
+    assert x[-1] == pytest.approx(length / FOOT, rel=1e-6)
+    assert "ft" in w.along.axes[-1].get_xlabel()
+
+
+def test_save_and_reopen_give_the_same_project(window, qtbot, tmp_path):
+    import rating
+
+    w = window
+    open_rated(qtbot, w)
+    set_text(qtbot, w, "boiling.mass_flow", "4.2")
+    assert w.doc.dirty
+    target = tmp_path / "copy.ebullio"
+    assert w._save_to(target)
+    assert not w.doc.dirty
+    drafts = [e.draft for e in w.doc.entries]
+    # the file holds what was on screen, read by the engine's own loader
+    loaded = rating.load_project(target)
+    assert [catalogue.case_to_draft(c) for c in loaded.cases] == drafts
+    assert w.open_path(target)
+    assert [e.draft for e in w.doc.entries] == drafts
+    text = target.read_text(encoding="utf-8")
+    assert w._save_to(target)
+    assert target.read_text(encoding="utf-8") == text
+
+
+def test_undo_and_redo_restore_values_and_typing_in_one_field_is_one_step(window, qtbot):
+    w = window
+    open_rated(qtbot, w)
+    eid = w.current_id
+    original = catalogue.get_value(w.doc.entry(eid).draft, "tubes.count")
+    editor = set_text(qtbot, w, "tubes.count", "150")
+    assert catalogue.get_value(w.doc.entry(eid).draft, "tubes.count") == 150
+    assert w.doc.undo.count() == 1            # delete + two keystrokes merged
+    w.a_undo.trigger()
+    assert catalogue.get_value(w.doc.entry(eid).draft, "tubes.count") == original
+    assert editor.text() == str(original)
+    assert not w.doc.dirty
+    w.a_redo.trigger()
+    assert catalogue.get_value(w.doc.entry(eid).draft, "tubes.count") == 150
+    assert editor.text() == "150"
+    assert w.doc.dirty
+
+
+def test_choosing_a_warning_marks_its_position_on_every_plot(window, qtbot):
+    w = window
+    st = open_rated(qtbot, w)
+    placed = [wr for wr in st.result.warnings if wr.z_m is not None]
+    assert placed, "the quick sample should carry a placed warning (dryout)"
+    row = next(i for i in range(w.warnings.count()) if f"{placed[0].message}" in w.warnings.item(i).text())
+    w.warnings.setCurrentRow(row)
+    for mark in w.along.marks:
+        assert mark.get_visible()
+        assert mark.get_xdata()[0] == pytest.approx(placed[0].z_m)      # SI/metric: m
+    w.warnings.setCurrentRow(-1)
+    assert not any(m.get_visible() for m in w.along.marks)
+
+
+def test_cancel_stops_a_running_rating(window, qtbot, monkeypatch):
+    import threading
+
+    import gui.runner
+
+    w = window
+    open_rated(qtbot, w)
+    # hold the worker at its first progress report until Stop has been pressed, so
+    # that the rating is surely running when it is stopped (a shared machine may be slow)
+    started, pressed = threading.Event(), threading.Event()
+    real = gui.runner._Job._progress
+
+    def held(job, fraction):
+        started.set()
+        pressed.wait(30)
+        real(job, fraction)
+    monkeypatch.setattr(gui.runner._Job, "_progress", held)
+    finished = []
+    w.runner._signals.done.connect(lambda eid, gen, result, err: finished.append(result))
+    eid = w.current_id
+    w.runner.rate(eid)
+    assert started.wait(60)
+    assert w.runner.state(eid).status == "rating" and w.stop_button.isVisibleTo(w)
+    w.a_stop.trigger()
+    pressed.set()
+    assert w.runner.state(eid).status == "cancelled"
+    qtbot.waitUntil(lambda: bool(finished), timeout=RATING_TIMEOUT_MS)
+    stopped = finished[-1]
+    # the engine honoured its cancel callback: the run ended without a rated result
+    assert stopped is None or stopped.status in ("cancelled", "failed")
+    if stopped is not None:
+        assert "cancel" in stopped.message.lower()
+    st = w.runner.state(eid)
+    assert st.status == "cancelled" and st.stale and st.result is not None
+    assert "stale" in w.verdict.text()
+
+
+def test_closing_with_unsaved_changes_asks_first(window, qtbot):
+    from PySide6.QtWidgets import QMessageBox
+
+    w = window
+    open_rated(qtbot, w)
+    set_text(qtbot, w, "tubes.count", "130")
+    asked = []
+    w.ask_unsaved = lambda: asked.append(1) or QMessageBox.Cancel
+    assert not w.close()
+    assert asked and w.isVisible()
+    w.ask_unsaved = lambda: asked.append(2) or QMessageBox.Discard
+    assert w.close()
+    assert asked == [1, 2]
+
+
+def test_a_file_that_fails_to_load_says_why_and_changes_nothing(window, qtbot, tmp_path):
+    w = window
+    open_rated(qtbot, w)
+    drafts = [e.draft for e in w.doc.entries]
+    bad = tmp_path / "broken.ebullio"
+    bad.write_text('{"format": "ebullio-project", "schema_version": 1, "cases": [', encoding="utf-8")
+    assert not w.open_path(bad)
+    assert w.errors and "broken.ebullio" in w.errors[-1][1]
+    newer = tmp_path / "newer.ebullio"
+    newer.write_text('{"format": "ebullio-project", "schema_version": 999, "cases": []}', encoding="utf-8")
+    assert not w.open_path(newer)
+    assert "newer" in w.errors[-1][1]
+    assert [e.draft for e in w.doc.entries] == drafts
+
+
+def test_cases_add_duplicate_rename_reorder_delete(window, qtbot, monkeypatch):
+    from PySide6.QtWidgets import QInputDialog
+
+    w = window
+    open_rated(qtbot, w)
+    n = len(w.doc.entries)
+    first = w.doc.entries[0]
+    w.a_dup.trigger()
+    assert len(w.doc.entries) == n + 1
+    copy = w.doc.entries[1]
+    assert copy.draft["tubes"] == first.draft["tubes"] and copy.name != first.name
+    assert w.current_id == copy.id
+    monkeypatch.setattr(QInputDialog, "getText", staticmethod(lambda *a, **k: ("Longer tubes", True)))
+    w.a_rename.trigger()
+    assert w.doc.entry(copy.id).name == "Longer tubes"
+    assert w.case_list.item(1).text().startswith("Longer tubes")
+    w.a_up.trigger()
+    assert w.doc.entries[0].id == copy.id
+    w.a_new_case["kettle"].trigger()
+    kettle = w.doc.entries[-1]
+    assert kettle.type == "kettle" and w.current_id == kettle.id
+    assert w.form_stack.currentWidget() is w.forms["kettle"]
+    # a new case has the catalogue's inputs for its type and states what is missing
+    assert "not rated" in w.case_list.item(len(w.doc.entries) - 1).text() or \
+        "invalid" in w.case_list.item(len(w.doc.entries) - 1).text()
+    w.a_delete.trigger()
+    assert kettle.id not in [e.id for e in w.doc.entries]
+    w.a_undo.trigger()
+    assert kettle.id in [e.id for e in w.doc.entries]
+
+
+def test_the_status_of_each_case_shows_in_the_list(window, qtbot):
+    w = window
+    open_rated(qtbot, w)
+    text = w.case_list.item(0).text()
+    st = w.runner.state(w.doc.entries[0].id)
+    assert st.status in ("rated", "warnings") and st.status in text
+    set_text(qtbot, w, "tubes.count", "121")
+    assert "stale" in w.case_list.item(0).text()
+
+
+def test_start_page_offers_new_cases_samples_and_recent_files(window, qtbot):
+    w = window
+    assert w.pages.currentWidget() is w.start
+    assert w.start.samples.count() >= 6
+    from PySide6.QtWidgets import QPushButton
+
+    qtbot.mouseClick(w.start.findChild(QPushButton, "start-new-thermosiphon"), Qt.LeftButton)
+    assert w.pages.currentIndex() == 1 and w.doc.entries[0].type == "thermosiphon"
+
+
+def test_tab_order_follows_the_datasheet(window, qtbot):
+    w = window
+    open_rated(qtbot, w)
+    form = w.current_form()
+    visible = [r for r in form.rows.values() if r.editor.isVisibleTo(form)]
+    chain = [visible[0].editor]
+    for _ in range(len(visible) - 1):
+        nxt = chain[-1].nextInFocusChain()
+        while nxt not in [r.editor for r in visible]:
+            nxt = nxt.nextInFocusChain()
+        chain.append(nxt)
+    assert chain == [r.editor for r in visible]
+    order = [f.path for f in catalogue.inputs_for("evaporator")]
+    paths = [r.field.path for r in visible]
+    assert paths == [p for p in order if p in paths]
+
+
+def test_every_menu_command_has_a_key_or_a_mnemonic(window):
+    for top in [a.menu() for a in window.menuBar().actions() if a.menu()]:
+        assert "&" in top.title(), top.title()            # Alt + letter opens it
+        for a in top.actions():
+            if a.isSeparator() or not a.text() or not a.isEnabled():
+                continue
+            assert not a.shortcut().isEmpty() or "&" in a.text(), a.text()
