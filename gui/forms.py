@@ -128,7 +128,7 @@ class Row:
         self.message.setVisible(False)
         self.message.setObjectName(f"message:{field.path}")
         kind = field.kind
-        if kind == "choice":
+        if kind == "choice" or field.choices:
             self.editor = QComboBox()
             self.editor.setSizeAdjustPolicy(QComboBox.AdjustToMinimumContentsLengthWithIcon)
             self.editor.setMinimumContentsLength(8)
@@ -173,7 +173,8 @@ class Row:
 
     def show_value(self, value, draft, system):
         f = self.field
-        self.unit.setText(units.unit_label(f.quantity, system) if f.kind == "number" else "")
+        label = units.unit_label(f.quantity, system)
+        self.unit.setText("" if label in ("-", "–") else label)
         tip = [f.help] if f.help else []
         rng = _range_text(f, system)
         if rng:
@@ -184,7 +185,7 @@ class Row:
             tip.append("may be left empty")
         tooltip = "\n".join(tip)
         self.label.setToolTip(tooltip)
-        if f.kind == "choice":
+        if isinstance(self.editor, QComboBox):
             self._fill_choices(value, draft)
         elif f.kind == "flag":
             self.editor.setToolTip(tooltip)
@@ -205,8 +206,10 @@ class Row:
             items = [(c, choice_text(c), "") for c in f.choices]
         else:
             items = catalogue.method_choices(f.path, draft)
+        if f.optional:
+            items = [(None, "(not given)", "")] + items
         values = [v for v, _, _ in items]
-        if value is not None and value not in values:
+        if value not in values:
             items = items + [(value, f"{value} (not offered for this case)", "")]
             values.append(value)
         if values != self._choices:

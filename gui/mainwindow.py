@@ -510,6 +510,8 @@ class MainWindow(QMainWindow):
             self.sketch.show_draft(draft, self.system)
             if path == "name":
                 self._show_header()
+            elif path == "type":               # another exchanger type: its own datasheet
+                self.select_case(entry_id)
 
     def new_case(self, case_type: str):
         name = self.doc.unique_name(f"New {TYPE_TITLES[case_type]}")

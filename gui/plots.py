@@ -306,8 +306,8 @@ class BalancePanel(_Canvas):
         self.unsolved.set_data(_display(bad, "mass_flow", system), np.zeros(len(bad)))
         if chosen:
             c = chosen[0]
-            self.note.set_text(f"operating point: {units.format_value(c['circulation_kg_s'], 'mass_flow', system)} "
-                               f"{units.unit_label('mass_flow', system)}; {len(pts)} crossing(s)")
+            self.note.set_text(f"operating point: {units.format_value(c['circulation_kg_s'], 'mass_flow', system)}; "
+                               f"{len(pts)} crossing{'s' if len(pts) > 1 else ''} of the two curves")
         else:
             self.note.set_text("no balance: the head does not carry the losses at any circulation"
                                if curve else "no pressure-balance curve")

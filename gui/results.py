@@ -14,6 +14,7 @@ from PySide6.QtWidgets import (QAbstractItemView, QHeaderView, QListWidget, QLis
 from rating import catalogue
 
 from . import units
+from .verdict import amount
 
 NOT_COMPUTED = "not computed"
 GREY = QColor("#888888")
@@ -35,12 +36,12 @@ def value_text(result, key, system) -> str:
         return NOT_COMPUTED
     if isinstance(v, str):
         return v
-    return units.format_value(v, catalogue.SUMMARY[key].quantity, system)
+    return units.format_number(units.to_display(v, catalogue.SUMMARY[key].quantity, system))
 
 
 def unit_text(key, system) -> str:
     u = units.unit_label(catalogue.SUMMARY[key].quantity, system)
-    return "" if u == "-" else u
+    return "" if u in ("-", "–") else u
 
 
 def _item(text, right=False, grey=False, tip=""):
@@ -123,8 +124,7 @@ class WarningsList(QListWidget):
         for w in sorted(warnings, key=lambda w: ("error", "warning", "info").index(w.severity)):
             where = ""
             if w.z_m is not None:
-                where = (f" [z = {units.format_value(w.z_m, 'length', system, 3)} "
-                         f"{units.unit_label('length', system)}]")
+                where = f" [z = {amount(w.z_m, 'length', system, 3)}]"
             it = QListWidgetItem(f"{SEVERITY_MARK.get(w.severity, '')}  {w.message}{where}")
             it.setForeground(QBrush(QColor(SEVERITY_COLOUR.get(w.severity, "#222222"))))
             it.setToolTip(f"{w.severity}: {w.code}")
@@ -174,4 +174,5 @@ def difference(a, b, quantity, system) -> str:
     if d == 0:
         return "0"
     rel = f" ({(a - b) / abs(b) * 100:+.1f} %)" if b and quantity not in ("temperature",) else ""
-    return f"{d:+,.4g}{rel}"
+    sign = "+" if d > 0 else "−"
+    return f"{sign}{units.format_number(abs(d))}{rel}"

@@ -43,7 +43,7 @@ class UnitSketch(QWidget):
         self.update()
 
     def _len(self, metres):
-        return f"{units.format_value(metres, 'length', self.system, 3)} {units.unit_label('length', self.system)}"
+        return units.format_value(metres, "length", self.system, 3)
 
     def paintEvent(self, event):
         p = QPainter(self)

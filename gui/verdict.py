@@ -11,15 +11,19 @@ from rating import catalogue
 from . import units
 
 
+def amount(value, quantity, system, digits=4) -> str:
+    """'1,234 kW': a value in the unit system with its unit (none for pure numbers)."""
+    if units.unit_label(quantity, system) in ("-", "–", ""):
+        return units.format_number(units.to_display(value, quantity, system), digits)
+    return units.format_value(value, quantity, system, digits)
+
+
 def figure(result, key, system, digits=4):
     """'1,234 kW' of a summary key in the unit system; None when the key was not computed."""
     value = result.summary.get(key) if result is not None else None
     if value is None or key not in catalogue.SUMMARY:
         return None
-    q = catalogue.SUMMARY[key].quantity
-    unit = units.unit_label(q, system)
-    text = units.format_value(value, q, system, digits)
-    return f"{text} {unit}".strip() if unit not in ("-", "") else text
+    return amount(value, catalogue.SUMMARY[key].quantity, system, digits)
 
 
 def verdict(result, system: str, *, message: str = "") -> str:
@@ -55,8 +59,7 @@ def verdict(result, system: str, *, message: str = "") -> str:
     serious = [w for w in result.warnings if w.severity in ("warning", "error")]
     if serious:
         placed = [w.z_m for w in serious if w.z_m is not None]
-        where = (f", the first at z = {units.format_value(min(placed), 'length', system, 3)} "
-                 f"{units.unit_label('length', system)}") if placed else ""
+        where = f", the first at z = {amount(min(placed), 'length', system, 3)}" if placed else ""
         n = len(serious)
         parts.append(f"{n} warning{'s' if n > 1 else ''}{where}")
     return "; ".join(parts) + "."

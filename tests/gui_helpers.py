@@ -37,6 +37,7 @@ def make_window(qtbot, monkeypatch=None):
     w.errors = []
     w.ask_unsaved = lambda: QMessageBox.Discard        # tests that care replace it
     qtbot.addWidget(w)
+    w.set_system("SI")
     w.resize(1280, 800)
     w.show()
     return w

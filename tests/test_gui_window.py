@@ -29,7 +29,7 @@ def test_edit_rerates_and_the_verdict_and_a_plotted_line_follow(window, qtbot):
         set_text(qtbot, w, "boiling.mass_flow", "3")
     after = w.runner.state(w.current_id).result
     assert after is not before and not w.runner.state(w.current_id).stale
-    # the draft took the typed value (kg/s is the mass-flow unit of SI and metric)
+    # the draft took the typed value (the window shows SI: kg/s)
     assert catalogue.get_value(w.doc.entry(w.current_id).draft, "boiling.mass_flow") == pytest.approx(3.0)
     assert after.summary["duty_W"] != before.summary["duty_W"]
     assert w.verdict.text() != verdict_before
@@ -77,6 +77,8 @@ def test_switching_units_converts_the_display_and_leaves_the_stored_values(windo
     assert "ft" in form.rows["tubes.length"].unit.text()
     w.set_system("SI")
     assert float(form.editor("tubes.length").text()) == pytest.approx(length, rel=1e-6)
+    assert float(form.editor("boiling.inlet_pressure").text().replace(",", "")) == \
+        pytest.approx(pressure / 1000, rel=1e-6)            # kPa(a)
     assert w.doc.entry(w.current_id).draft == draft_before
     assert not w.doc.dirty
     # the plots follow: the z axis ends at the heated length in the shown unit
