@@ -227,9 +227,16 @@ class MainWindow(QMainWindow):
         self.along = AlongTubePanel()
         self.balance = BalancePanel()
         self.compare = CompareTable()
+        side = QWidget()
+        sl2 = QVBoxLayout(side)
+        sl2.setContentsMargins(4, 4, 4, 4)
+        self.compare_names = QLabel("")
+        self.compare_names.setWordWrap(True)
+        sl2.addWidget(self.compare_names)
+        sl2.addWidget(self.compare, 1)
         self.tabs.addTab(self.along, "Along the tube")
         self.tabs.addTab(self.balance, "Circulation")
-        self.tabs.addTab(self.compare, "Side by side")
+        self.tabs.addTab(side, "Side by side")
         split.addWidget(top)
         split.addWidget(self.tabs)
         split.setStretchFactor(0, 0)
@@ -253,6 +260,9 @@ class MainWindow(QMainWindow):
         self.case_list = QListWidget()
         self.case_list.setObjectName("case-list")
         self.case_list.setMinimumWidth(170)
+        self.case_list.setWordWrap(True)
+        self.case_list.setHorizontalScrollBarPolicy(Qt.ScrollBarAlwaysOff)
+        self.case_list.setTextElideMode(Qt.ElideMiddle)
         bl.addWidget(self.case_list, 1)
         self.case_buttons = QHBoxLayout()
         self.case_buttons.setSpacing(2)
@@ -625,7 +635,12 @@ class MainWindow(QMainWindow):
             self.tabs.setTabVisible(1, is_ts)
             if is_ts:
                 self.balance.show_result(curve_from, self.system)
-            self.compare.show_pair(result, other, self.system, (entry.name, other_name))
+            self.compare.show_pair(result, other, self.system)
+            self.compare_names.setText(
+                f"<b>This case:</b> {entry.name}<br><b>Compared:</b> {other_name}" if other_name else
+                "Choose what to compare with above (another case, or the rating before the last "
+                "edit): both sets of key figures and their differences show here, and its "
+                "profiles show as faint lines on the plots.")
 
     # --- comparison ---------------------------------------------------------------------------
     def _fill_compare(self):
@@ -726,7 +741,8 @@ class MainWindow(QMainWindow):
             return False
         self._replace(project, path)
         files.remember(path)
-        self.offer_recovery(path)
+        if not self.offer_recovery(path) and self.runner.live:
+            self.runner.rate_all()      # every case shows its status in the list at once
         return True
 
     def _replace(self, project, path, drafts=None):

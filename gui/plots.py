@@ -244,7 +244,7 @@ class AlongTubePanel(_Canvas):
         if q.size and np.isfinite(q).any():
             top = np.nanmax(q)
             if chf.size and np.isfinite(chf).any():
-                top = max(top, min(np.nanmin(chf), 3.0 * top))
+                top = max(top, min(np.nanmin(chf), 8.0 * top))
             if top > 0:
                 self.axes[1].set_ylim(0, 1.1 * top)
 
@@ -282,7 +282,7 @@ class BalancePanel(_Canvas):
         (self.chosen,) = ax.plot([], [], "o", color=INK, ms=8, label="operating point")
         (self.unsolved,) = ax.plot([], [], "x", color="#888888", ms=6, label="not solved")
         self.note = ax.text(0.02, 0.97, "", transform=ax.transAxes, va="top", fontsize=FONT)
-        ax.legend(loc="lower right", fontsize=FONT - 1, frameon=False)
+        self.legend = None
         self.system = "SI"
 
     def show_result(self, result, system):
@@ -313,6 +313,12 @@ class BalancePanel(_Canvas):
                                if curve else "no pressure-balance curve")
         self.ax.set_xlabel(f"Circulation [{units.unit_label('mass_flow', system)}]", fontsize=FONT)
         self.ax.set_ylabel(f"Pressure difference [{units.unit_label(dp, system)}]", fontsize=FONT)
+        if self.legend is not None:
+            self.legend.remove()
+        shown = [a for a in self.ax.get_lines() if len(a.get_xdata())]
+        self.legend = self.ax.legend(handles=shown, loc="upper left", bbox_to_anchor=(0.0, 0.92),
+                                     fontsize=FONT - 1, frameon=True, framealpha=0.85,
+                                     edgecolor="none") if shown else None
         self.ax.relim()
         self.ax.autoscale_view()
         self.canvas.draw_idle()

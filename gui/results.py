@@ -26,8 +26,10 @@ def summary_keys(result) -> list[str]:
     """The catalogue's summary keys this result carries, in display order."""
     if result is None:
         return []
-    return [k for k, f in catalogue.SUMMARY.items()
+    keys = [k for k, f in catalogue.SUMMARY.items()
             if k in result.summary and (not f.types or result.type in f.types)]
+    # figures that were computed first; those that were not, after them, in grey
+    return sorted(keys, key=lambda k: result.summary.get(k) is None)
 
 
 def value_text(result, key, system) -> str:
@@ -149,9 +151,7 @@ class CompareTable(_Table):
         super().__init__(["Key figure", "This case", "Compared", "Difference", "Unit"], parent)
         self.setObjectName("compare")
 
-    def show_pair(self, this, other, system, names=("", "")):
-        self.setHorizontalHeaderLabels(["Key figure", names[0] or "This case",
-                                        names[1] or "Compared", "Difference", "Unit"])
+    def show_pair(self, this, other, system):
         keys = summary_keys(this) or summary_keys(other)
         keys += [k for k in summary_keys(other) if k not in keys]
         self.setRowCount(len(keys))

@@ -1,0 +1,164 @@
+"""Responsiveness of the desktop window (a measurement, not a test).
+
+    python benchmarks/bench_gui.py [--edits 20] [--skip-startup]
+
+1. Edit to updated plots: for one sample of each exchanger type, 20 edits of one
+   field (typed into the datasheet's editor); the time from the edit to the moment the
+   along-the-tube panel has drawn the new result, median and worst. The edit waits
+   out the typing pause (``gui.runner.DEBOUNCE_MS``) before the rating starts; the
+   figures are given with and without it.
+2. The longest event-loop block while this runs: a 5 ms timer in the GUI thread; the
+   largest gap between its ticks, less 5 ms.
+3. Start-up in a fresh process: from launch to the painted window, and to the first
+   sample rated (the property library is imported in the background meanwhile).
+
+Run it on a quiet machine; the figures scale with the load of the machine.
+"""
+from __future__ import annotations
+
+import argparse
+import os
+import statistics
+import subprocess
+import sys
+import time
+from pathlib import Path
+
+ROOT = Path(__file__).resolve().parent.parent
+sys.path.insert(0, str(ROOT))
+
+# one sample of each type, the field edited, and the two SI values it alternates between
+CASES = (
+    ("evaporator", "pentane-vaporiser.ebullio", "boiling.mass_flow", (4.5, 4.4)),
+    ("thermosiphon", "stripper-reboiler.ebullio", "thermosiphon.liquid_level", (2.0, 1.95)),
+    ("kettle", "harrow-creek-kettles.ebullio", "boiling.mass_flow", None),
+)
+
+STARTUP = r"""
+import sys, time
+t_launch = float(sys.argv[1])
+from gui.app import warm_up
+import threading
+threading.Thread(target=warm_up, daemon=True).start()
+from PySide6.QtCore import QTimer
+from PySide6.QtWidgets import QApplication
+app = QApplication([])
+app.setOrganizationName("EbullioBench"); app.setApplicationName("EbullioBench")
+from gui.mainwindow import MainWindow
+w = MainWindow(first_start_caution=False)
+w.resize(1280, 800)
+w.show()
+def painted():
+    print("painted", time.time() - t_launch, flush=True)
+    w.runner.resultArrived.connect(lambda _id: (print("rated", time.time() - t_launch, flush=True),
+                                                app.quit()))
+    w.open_path(sys.argv[2])
+QTimer.singleShot(0, painted)
+app.exec()
+"""
+
+
+def startup(sample: Path) -> tuple[float, float]:
+    env = dict(os.environ, PYTHONPATH=str(ROOT), QT_QPA_PLATFORM=os.environ.get("QT_QPA_PLATFORM", "offscreen"))
+    env["XDG_DATA_HOME"] = env["XDG_CONFIG_HOME"] = str(Path(os.environ.get("TMPDIR", "/tmp")) / "ebullio-bench")
+    t0 = time.time()
+    out = subprocess.run([sys.executable, "-c", STARTUP, repr(t0), str(sample)], env=env,
+                         capture_output=True, text=True, timeout=600).stdout
+    got = dict(line.split() for line in out.splitlines() if line.split()[:1] in (["painted"], ["rated"]))
+    return float(got["painted"]), float(got["rated"])
+
+
+def edits(n: int):
+    os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
+    from PySide6.QtCore import QElapsedTimer, QTimer
+    from PySide6.QtWidgets import QApplication
+
+    app = QApplication.instance() or QApplication([])
+    app.setOrganizationName("EbullioBench")
+    app.setApplicationName("EbullioBench")
+    from gui import forms, runner
+    from gui.mainwindow import MainWindow
+    from rating import catalogue
+
+    w = MainWindow(first_start_caution=False)
+    w.set_system("SI")
+    w.resize(1280, 800)
+    w.show()
+    clock = QElapsedTimer()
+    clock.start()
+    gaps = {"worst": 0.0, "last": 0}
+
+    def tick():
+        now = clock.elapsed()
+        gaps["worst"] = max(gaps["worst"], now - gaps["last"] - 5)
+        gaps["last"] = now
+    beat = QTimer()
+    beat.setInterval(5)
+    beat.timeout.connect(tick)
+    drawn = {"t": None}
+    w.along.canvas.mpl_connect("draw_event", lambda _e: drawn.__setitem__("t", time.perf_counter()))
+
+    def wait(cond, timeout=120):
+        end = time.perf_counter() + timeout
+        while not cond() and time.perf_counter() < end:
+            app.processEvents()
+            time.sleep(0.001)
+        return cond()
+
+    rows = []
+    for kind, name, path, values in CASES:
+        w.doc.undo.setClean()
+        w.open_path(ROOT / "samples" / name)
+        eid = w.current_id
+        wait(lambda: w.runner.state(eid).result is not None and not w.runner.busy())
+        form = w.current_form()
+        editor = form.editor(path)
+        field = catalogue.input_field(path)
+        if values is None:
+            v0 = catalogue.get_value(w.doc.entry(eid).draft, path)
+            values = (v0, v0 * 0.98)
+        times = []
+        gaps["worst"], gaps["last"] = 0.0, clock.elapsed()
+        beat.start()
+        for i in range(n):
+            value = values[(i + 1) % 2]
+            text = forms.format_input(value, field, "SI")
+            drawn["t"] = None
+            t0 = time.perf_counter()
+            editor.setText(text)
+            editor.textEdited.emit(text)
+            ok = wait(lambda: drawn["t"] is not None and w.runner.state(eid).status != "rating"
+                      and not w.runner.state(eid).stale)
+            if not ok:
+                print(f"  {kind}: edit {i} gave no new plot ({w.runner.state(eid).status})")
+                continue
+            times.append(drawn["t"] - t0)
+        beat.stop()
+        debounce = runner.DEBOUNCE_MS / 1000
+        rows.append((kind, name, statistics.median(times), max(times), debounce, gaps["worst"], len(times)))
+    w.doc.undo.setClean()
+    w.close()
+    return rows
+
+
+def main(argv=None) -> int:
+    p = argparse.ArgumentParser(description=__doc__.splitlines()[0])
+    p.add_argument("--edits", type=int, default=20)
+    p.add_argument("--skip-startup", action="store_true")
+    args = p.parse_args(argv)
+    load = os.getloadavg()[0] if hasattr(os, "getloadavg") else float("nan")
+    print(f"machine load (1 min): {load:.1f} on {os.cpu_count()} cores")
+    if not args.skip_startup:
+        painted, rated = startup(ROOT / "samples" / "pentane-vaporiser.ebullio")
+        print(f"start-up, fresh process: painted window {painted:.2f} s; first sample rated {rated:.2f} s")
+    print(f"edit -> updated plots, {args.edits} edits each (debounce included / excluded), "
+          "longest event-loop block")
+    for kind, name, med, worst, debounce, block, n in edits(args.edits):
+        print(f"  {kind:<12} {name:<30} median {med * 1000:6.0f} ms / {(med - debounce) * 1000:6.0f} ms; "
+              f"worst {worst * 1000:6.0f} ms / {(worst - debounce) * 1000:6.0f} ms; "
+              f"longest block {block:5.0f} ms  ({n} edits)")
+    return 0
+
+
+if __name__ == "__main__":
+    sys.exit(main())

@@ -1,0 +1,138 @@
+"""Autosave and recovery after a crash, comparison of two ratings, the drawing, help.
+
+Driven on real widgets with pytest-qt; checked against the engine's results, the
+files on disk, and the property library's own version string.
+"""
+from __future__ import annotations
+
+import numpy as np
+import pytest
+
+from gui_helpers import (QUICK, RATING_TIMEOUT_MS, make_window, open_rated, scratch,  # noqa: F401
+                         set_text, window)
+from rating import catalogue
+
+
+def test_a_crash_leaves_an_autosave_that_the_next_start_offers(qtbot, scratch, tmp_path):
+    import shutil
+
+    from gui import files
+
+    project = tmp_path / "unit.ebullio"
+    shutil.copy(QUICK, project)
+    first = make_window(qtbot)
+    open_rated(qtbot, first, project)
+    set_text(qtbot, first, "tubes.count", "133")
+    first.autosave_now()
+    kept = files.pending_autosaves(project)
+    assert len(kept) == 1
+    # the session dies here: no close, no save; its autosave stays on disk
+    first.runner.shutdown()
+    first.doc.undo.setClean()
+    first.autosave_file = None          # the dead session no longer owns it
+
+    second = make_window(qtbot)
+    offered = []
+    second.ask_recover = lambda what, when, n: offered.append((what, n)) or True
+    assert second.offer_recovery()
+    assert offered == [("unit.ebullio", 2)]
+    entry = second.doc.entries[0]
+    assert catalogue.get_value(entry.draft, "tubes.count") == 133
+    assert second.doc.dirty and second.doc.path.name == "unit.ebullio"
+    # once saved, nothing is offered any more
+    assert second._save_to(project)
+    assert files.pending_autosaves(project) == []
+    second.runner.shutdown()
+
+
+def test_an_autosave_older_than_its_file_is_not_offered(qtbot, scratch, tmp_path):
+    import os
+    import shutil
+    import time
+
+    from gui import files
+
+    project = tmp_path / "unit.ebullio"
+    shutil.copy(QUICK, project)
+    w = make_window(qtbot)
+    open_rated(qtbot, w, project)
+    set_text(qtbot, w, "tubes.count", "134")
+    w.autosave_now()
+    later = time.time() + 60
+    os.utime(project, (later, later))       # the file was saved after the autosave
+    assert files.pending_autosaves(project) == []
+    w.runner.shutdown()
+
+
+def test_the_rating_before_the_last_edit_is_overlaid_and_its_differences_listed(window, qtbot):
+    from gui import units
+
+    w = window
+    before = open_rated(qtbot, w).result
+    with qtbot.waitSignal(w.runner.resultArrived, timeout=RATING_TIMEOUT_MS):
+        set_text(qtbot, w, "boiling.mass_flow", "4")
+    after = w.runner.state(w.current_id).result
+    assert w.runner.state(w.current_id).previous is before
+    w.compare_to("previous")
+    ghost = w.along.ghosts["t_wall_inner_K"]
+    assert ghost.get_visible()
+    np.testing.assert_allclose(ghost.get_ydata(), [units.to_display(v, "temperature", "SI")
+                                                   for v in before.profiles["t_wall_inner_K"]])
+    label = catalogue.SUMMARY["duty_W"].label
+    row = next(r for r in range(w.compare.rowCount()) if w.compare.item(r, 0).text() == label)
+    shown = float(w.compare.item(row, 3).text().split()[0].replace(",", "").replace("−", "-"))
+    expected = units.to_display(after.summary["duty_W"], "power", "SI") - \
+        units.to_display(before.summary["duty_W"], "power", "SI")
+    assert shown == pytest.approx(expected, rel=2e-3, abs=0.5)
+    w.compare_to("")
+    assert not ghost.get_visible()
+
+
+def test_rate_all_cases_gives_every_case_a_status(window, qtbot):
+    w = window
+    open_rated(qtbot, w)
+    ids = [e.id for e in w.doc.entries]
+    w.a_rate_all.trigger()
+    qtbot.waitUntil(lambda: all(w.runner.state(i).status in ("rated", "warnings", "failed")
+                                for i in ids), timeout=RATING_TIMEOUT_MS)
+    for row, i in enumerate(ids):
+        assert w.runner.state(i).status in w.case_list.item(row).text()
+
+
+def test_the_drawing_follows_the_geometry(window, qtbot):
+    w = window
+    open_rated(qtbot, w)
+    picture = w.sketch.grab().toImage()
+    set_text(qtbot, w, "tubes.length", "1.5")
+    assert catalogue.get_value(w.sketch.draft, "tubes.length") == pytest.approx(1.5)
+    assert w.sketch.grab().toImage() != picture
+
+
+def test_help_lists_the_methods_of_the_rating_and_the_about_box_the_versions(window, qtbot, monkeypatch):
+    import CoolProp
+
+    import rating
+    from gui import mainwindow
+
+    w = window
+    result = open_rated(qtbot, w).result
+    shown = {}
+    monkeypatch.setattr(w, "_text_dialog", lambda title, html: shown.update(title=title, html=html))
+    w.show_methods()
+    for m in result.methods:
+        assert (m.title or m.name) in shown["html"]
+    assert mainwindow.CAUTION in shown["html"]
+    about = mainwindow.about_text()
+    assert CoolProp.__version__ in about and rating.__version__ in about
+    assert "qualified engineer" in about
+
+
+def test_the_caution_shows_on_first_start_only(qtbot, scratch):
+    w = make_window(qtbot)
+    w.first_start_caution = True
+    seen = []
+    w.show_caution = lambda: seen.append(1)
+    w.first_start()
+    w.first_start()
+    assert seen == [1]
+    assert "qualified engineer" in w.caution.text()
