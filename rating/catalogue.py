@@ -580,9 +580,10 @@ def with_value(case, path: str, value):
 
 
 def numeric_paths(case_type: str) -> list[str]:
-    """Input paths a study may vary for this exchanger type."""
+    """Input paths a study may vary for this exchanger type (not the limits, not a
+    vendor's stated figures: neither changes the rating)."""
     return [f.path for f in inputs_for(case_type) if f.kind in ("number", "integer")
-            and f.group != "limits"]
+            and f.group not in ("limits", "vendor")]
 
 
 # --- which fields apply ------------------------------------------------------------------
