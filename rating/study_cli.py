@@ -153,7 +153,7 @@ def _executor(args):
 
 
 def _run(args):
-    from . import catalogue, load_project, studies
+    from . import load_project, studies
 
     modes = [bool(args.spread), bool(args.fit), args.envelope]
     if sum(modes) > 1:
@@ -163,7 +163,7 @@ def _run(args):
     project = load_project(args.file)
     case = _pick_case(project, args.case, args.file)
     if args.list_paths:
-        return "paths", case, catalogue.numeric_paths(case.type)
+        return "paths", case, studies.study_paths(case)
     keys = _keys(args, case)
     executor, client = _executor(args)
     common = dict(executor=executor, increments=args.increments)

@@ -59,6 +59,10 @@ def test_parse_variation_forms():
 def test_sweep_refuses_a_path_that_is_not_a_numeric_input(pentane):
     with pytest.raises(InputError, match="tubes.lenght: not a numeric input"):
         sweep(pentane, [Variation("tubes.lenght", (1.0, 2.0))], executor=InlineExecutor())
+    # Steam heating has no inlet temperature; a vendor's stated duty does not change a rating.
+    for path in ("heating.inlet_temperature", "vendor.duty", "limits.chf_ratio"):
+        with pytest.raises(InputError, match="not a numeric input of this evaporator"):
+            sweep(pentane, [Variation(path, (1.0, 2.0))], executor=InlineExecutor())
 
 
 def test_parallel_sweep_equals_serial_and_single_ratings(pentane, pool):

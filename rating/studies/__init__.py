@@ -14,4 +14,4 @@ from .execution import (CANCELLED, REFUSED, InlineExecutor, Job, Point,  # noqa:
                         default_executor, rate_points)
 from .fit import MEASURABLE, Fit, Measurement, Parameter, fit  # noqa: F401
 from .spread import FAMILIES, Spread, applicable_methods, method_spread  # noqa: F401
-from .sweep import Sweep, Variation, parse_variation, sweep  # noqa: F401
+from .sweep import Sweep, Variation, parse_variation, study_paths, sweep  # noqa: F401

@@ -28,7 +28,7 @@ from scipy import optimize, stats
 from .. import catalogue
 from ..errors import InputError
 from .execution import Job, executor_scope, rate_points
-from .sweep import case_at
+from .sweep import case_at, check_path
 
 #: Results that can be measured on a running unit, in the catalogue's keys.
 MEASURABLE = ("duty_W", "steam_flow_kg_s", "heating_outlet_temperature_K",
@@ -91,11 +91,8 @@ def _check(case, measurements, parameters):
         raise InputError("give at least one measured value", field="measured")
     if not parameters:
         raise InputError("give at least one input to fit", field="fit")
-    allowed = catalogue.numeric_paths(case.type)
     for p in parameters:
-        if p.path not in allowed:
-            raise InputError(f"{p.path}: not a numeric input of a {case.type}; choose one of "
-                             + ", ".join(allowed), field=p.path)
+        check_path(case, p.path)
         if not (math.isfinite(p.lower) and math.isfinite(p.upper) and p.lower < p.upper):
             raise InputError(f"{p.path}: the bounds {p.lower:g} to {p.upper:g} must be finite "
                              "and rising", field=p.path)

@@ -54,15 +54,27 @@ def parse_variation(text: str) -> Variation:
     return Variation(path, values)
 
 
+def study_paths(case) -> list[str]:
+    """The numeric inputs a study may set on this case: of its type, and with a meaning
+    for it (a steam-heated case has no heating-medium inlet temperature)."""
+    draft = catalogue.case_to_draft(case)
+    return [p for p in catalogue.numeric_paths(case.type) if catalogue.applies(p, draft)]
+
+
+def check_path(case, path: str) -> None:
+    """Refuse a path a study cannot set on this case, naming the choices."""
+    allowed = study_paths(case)
+    if path not in allowed:
+        raise InputError(f"{path}: not a numeric input of this {case.type}; choose one of "
+                         + ", ".join(allowed), field=path)
+
+
 def check_variations(case, variations) -> None:
-    """Refuse a path that is not a numeric input of this exchanger type, naming the choices."""
+    """Refuse a path that is not a numeric input of this case, or an empty variation."""
     if not 1 <= len(variations) <= 2:
         raise InputError(f"a sweep varies one or two inputs, not {len(variations)}")
-    allowed = catalogue.numeric_paths(case.type)
     for v in variations:
-        if v.path not in allowed:
-            raise InputError(f"{v.path}: not a numeric input of a {case.type}; choose one of "
-                             + ", ".join(allowed), field=v.path)
+        check_path(case, v.path)
         if not v.values or not all(math.isfinite(x) for x in v.values):
             raise InputError(f"{v.path}: give at least one finite value", field=v.path)
     if len({v.path for v in variations}) != len(variations):
