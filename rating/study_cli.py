@@ -9,9 +9,10 @@
 Values are SI (the project file's units). ``--json`` prints the study, ``--csv FILE``
 writes its table (SI, one row per point). Points run on all cores (``--workers N``;
 1 rates in this process) or on a Dask scheduler (``--scheduler ADDRESS``, the
-``cluster`` extra). Exit status: 0 every point rated; 1 a point failed, was refused
-or has an error-severity warning, or the fit is poor or unidentifiable; 2 bad input
-(one line on stderr, no traceback).
+``cluster`` extra). Exit status (``EXIT_CODES``): 0 every point rated; 1 a point
+failed, was refused or has an error-severity finding, or the fit is poor or
+unidentifiable; 2 bad input (one line on stderr, no traceback); 3 internal error.
+The output helpers and exit statuses are ``rating.cli``'s.
 """
 from __future__ import annotations
 
@@ -21,16 +22,28 @@ import json
 import math
 import sys
 
-from .cli import CAUTION, _fmt, _row_for
+from pathlib import Path
+
+from .cli import (CAUTION, EXIT_BAD_INPUT, EXIT_FINDINGS, EXIT_INTERNAL, EXIT_RATED, _fmt,
+                  _row_for, guarded, refuse, write_out)
 
 PROG = "ebullio-study"
+
+EXIT_CODES = f"""\
+exit status:
+  {EXIT_RATED}  every point rated without an error-severity finding (a fit: a clean fit)
+  {EXIT_FINDINGS}  a point failed, was refused or has an error-severity finding; or the fit
+     is poor or a parameter is not identifiable
+  {EXIT_BAD_INPUT}  bad input: the project file or an option (one line on standard error)
+  {EXIT_INTERNAL}  internal error: a fault in Ebullio (one line on standard error)"""
 
 
 def _parser():
     p = argparse.ArgumentParser(
         prog=PROG, description="Sweeps, method spread, operating envelope and fit to plant "
         "data for a case of an Ebullio project file (.ebullio). Values are SI.",
-        epilog=CAUTION)
+        epilog=EXIT_CODES + "\n\n" + CAUTION,
+        formatter_class=argparse.RawDescriptionHelpFormatter)
     p.add_argument("file", help="project file")
     p.add_argument("--case", help="the case to study (needed when the file has several)")
     p.add_argument("--vary", action="append", default=[], metavar="PATH=SPEC",
@@ -63,8 +76,11 @@ def _parser():
     return p
 
 
-class _Refused(Exception):
-    """Bad input met by the command itself: one line, exit 2."""
+def _refused(message):
+    """Bad input met by the command itself (``guarded`` turns it into one line, exit 2)."""
+    from .errors import InputError
+
+    return InputError(message)
 
 
 def _default_keys(case_type, required):
@@ -85,7 +101,7 @@ def _keys(args, case):
     keys = [k.strip() for k in args.show.split(",") if k.strip()]
     for k in keys:
         if k not in catalogue.SUMMARY:
-            raise _Refused(f"--show {k}: not a result; results: {', '.join(catalogue.SUMMARY)}")
+            raise _refused(f"--show {k}: not a result; results: {', '.join(catalogue.SUMMARY)}")
     return keys
 
 
@@ -99,7 +115,7 @@ def _pick_case(project, name, file):
     names = ", ".join(repr(c.name) for c in project.cases) or "none"
     what = f"--case {name!r}: no such case" if name is not None else \
         "--case is needed: the file has several cases"
-    raise _Refused(f"{what} in {file} (cases: {names})")
+    raise _refused(f"{what} in {file} (cases: {names})")
 
 
 def _measurement(text):
@@ -112,7 +128,7 @@ def _measurement(text):
             raise ValueError
         return Measurement(key.strip(), float(value), float(tol))
     except ValueError:
-        raise _Refused(f"--measured {text!r}: write KEY=VALUE+-TOL in SI, for example "
+        raise _refused(f"--measured {text!r}: write KEY=VALUE+-TOL in SI, for example "
                        "duty_W=2.2e6+-3e4") from None
 
 
@@ -125,7 +141,7 @@ def _parameter(text):
         if not sep:
             raise ValueError
     except ValueError:
-        raise _Refused(f"--fit {text!r}: write PATH=LO:HI in SI, for example "
+        raise _refused(f"--fit {text!r}: write PATH=LO:HI in SI, for example "
                        "boiling.fouling_resistance=0:0.002") from None
     return Parameter(path.strip(), lo, hi)
 
@@ -138,16 +154,16 @@ def _executor(args):
         try:
             from distributed import Client
         except ImportError:
-            raise _Refused("--scheduler needs Dask distributed: install the cluster extra "
+            raise _refused("--scheduler needs Dask distributed: install the cluster extra "
                            "(pip install \".[cluster]\")") from None
         try:
             client = Client(args.scheduler, timeout=10)
         except (OSError, TimeoutError) as exc:
-            raise _Refused(f"--scheduler {args.scheduler}: cannot connect ({exc})") from None
+            raise _refused(f"--scheduler {args.scheduler}: cannot connect ({exc})") from None
         return client.get_executor(), client
     if args.workers is not None:
         if not 1 <= args.workers <= 1024:
-            raise _Refused(f"--workers = {args.workers}: must be between 1 and 1024")
+            raise _refused(f"--workers = {args.workers}: must be between 1 and 1024")
         return (InlineExecutor() if args.workers == 1 else default_executor(args.workers)), None
     return None, None
 
@@ -157,9 +173,13 @@ def _run(args):
 
     modes = [bool(args.spread), bool(args.fit), args.envelope]
     if sum(modes) > 1:
-        raise _Refused("choose one study: --vary alone (a sweep), --spread, --envelope or --fit")
-    if args.increments is not None and not 4 <= args.increments <= 5000:
-        raise _Refused(f"--increments = {args.increments}: must be between 4 and 5000")
+        raise _refused("choose one study: --vary alone (a sweep), --spread, --envelope or --fit")
+    if args.increments is not None:
+        from .validation import check_increments
+
+        check_increments(args.increments, "--increments")
+    if args.csv:
+        _check_csv(args.csv)
     project = load_project(args.file)
     case = _pick_case(project, args.case, args.file)
     if args.list_paths:
@@ -170,22 +190,22 @@ def _run(args):
     try:
         if args.spread:
             if args.vary or args.measured:
-                raise _Refused("--spread takes no --vary or --measured")
+                raise _refused("--spread takes no --vary or --measured")
             return "spread", case, studies.method_spread(case, args.spread, **common), keys
         if args.fit:
             if not args.measured:
-                raise _Refused("--fit needs at least one --measured KEY=VALUE+-TOL")
+                raise _refused("--fit needs at least one --measured KEY=VALUE+-TOL")
             fitted = studies.fit(case, [_measurement(m) for m in args.measured],
                                  [_parameter(f) for f in args.fit], **common)
             return "fit", case, fitted, keys
         variations = [studies.parse_variation(v) for v in args.vary]
         if args.envelope:
             if len(variations) != 2:
-                raise _Refused("--envelope needs two --vary inputs (the x and the y axis)")
+                raise _refused("--envelope needs two --vary inputs (the x and the y axis)")
             return "envelope", case, studies.envelope(
                 case, *variations, required_duty=args.required_duty, **common), keys
         if not variations:
-            raise _Refused("nothing to study: give --vary, --spread, --envelope or --fit "
+            raise _refused("nothing to study: give --vary, --spread, --envelope or --fit "
                            "(--list-paths lists the inputs)")
         return "sweep", case, studies.sweep(case, variations, **common), keys
     finally:
@@ -318,35 +338,37 @@ def _clean(v):
     return v
 
 
-def main(argv=None) -> int:
-    from .errors import RatingError
+def _check_csv(path):
+    """Refuse an output the study could not write, before any point is rated."""
+    target = Path(path)
+    if target.is_dir() or not target.parent.is_dir():
+        raise _refused(f"--csv {path}: not a file in an existing folder")
 
-    args = _parser().parse_args(argv)
-    try:
-        out = _run(args)
-        if out[0] == "paths":
-            print("\n".join(out[2]))
-            return 0
-        kind, case, study, keys = out
-        if args.csv:
-            _write_csv(kind, study, keys, args.csv)
-    except (_Refused, RatingError, OSError) as exc:
-        msg = str(exc).splitlines()[0] if str(exc) else type(exc).__name__
-        print(f"{PROG}: {msg}", file=sys.stderr)
-        return 2
-    except KeyboardInterrupt:
-        print(f"{PROG}: interrupted", file=sys.stderr)
-        return 2
+
+def _main(args) -> int:
+    out = _run(args)
+    if out[0] == "paths":
+        write_out("\n".join(out[2]) + "\n")
+        return EXIT_RATED
+    kind, case, study, keys = out
     if args.json:
         data = study.to_dict(keys) if kind in ("sweep", "envelope") else study.to_dict()
         data["caution"] = CAUTION
-        json.dump(data, sys.stdout, indent=1, default=_clean)
-        sys.stdout.write("\n")
+        write_out(json.dumps(data, indent=1, default=_clean) + "\n")
     else:
-        print(_text(kind, case, study, keys))
-        print()
-        print(CAUTION)
-    return 1 if _bad(kind, study) else 0
+        write_out(_text(kind, case, study, keys) + "\n\n" + CAUTION + "\n")
+    if args.csv:
+        try:
+            _write_csv(kind, study, keys, args.csv)
+        except OSError as exc:
+            return refuse(f"--csv {args.csv}: could not be written ({exc.strerror or exc}); "
+                          "the results above are complete", PROG)
+    return EXIT_FINDINGS if _bad(kind, study) else EXIT_RATED
+
+
+def main(argv=None) -> int:
+    args = _parser().parse_args(argv)
+    return guarded(lambda: _main(args), PROG)
 
 
 if __name__ == "__main__":  # pragma: no cover

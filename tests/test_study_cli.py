@@ -78,6 +78,8 @@ def test_list_paths(capsys):
     (["--spread", "boiling"], "choose one of"),
     (["--vary", "tubes.length=1:2:3", "--workers", "0"], "--workers"),
     (["--vary", "tubes.length=1:2:3", "--show", "duty"], "--show duty"),
+    (["--vary", "tubes.length=1:2:3", "--increments", "2"], "--increments"),
+    (["--vary", "tubes.length=1:2:3", "--csv", "/nonexistent-folder/x.csv"], "--csv"),
     ([], "nothing to study"),
 ])
 def test_bad_input_gives_one_line_and_exit_2(argv, words, capsys):
