@@ -17,7 +17,6 @@ The output helpers and exit statuses are ``rating.cli``'s.
 from __future__ import annotations
 
 import argparse
-import csv
 import json
 import math
 import sys
@@ -308,24 +307,6 @@ def _text(kind, case, study, keys) -> str:
     return "\n".join(out)
 
 
-def _write_csv(kind, study, keys, path):
-    if kind == "fit":
-        rows = [["path", "value", "uncertainty", "identifiable"]] + [
-            [p, v, study.uncertainty[p], study.identifiable[p]] for p, v in study.values.items()]
-    else:
-        points = study.points
-        names = (["method"] if kind == "spread" else list(points[0].inputs) if points else [])
-        keys = study.keys if kind == "spread" else keys
-        rows = [names + list(keys) + ["status", "reason"]]
-        for p in points:
-            rows.append([p.inputs[n] for n in names] + [p.value(k) for k in keys]
-                        + [p.status, p.message])
-    with open(path, "w", newline="", encoding="utf-8") as fh:
-        w = csv.writer(fh)
-        w.writerow([f"# {CAUTION}"])
-        w.writerows([["" if v is None else v for v in row] for row in rows])
-
-
 def _bad(kind, study) -> bool:
     if kind == "fit":
         return study.status != "fitted"
@@ -359,7 +340,9 @@ def _main(args) -> int:
         write_out(_text(kind, case, study, keys) + "\n\n" + CAUTION + "\n")
     if args.csv:
         try:
-            _write_csv(kind, study, keys, args.csv)
+            from .studies.export import write_csv
+
+            write_csv(study, args.csv, keys, CAUTION)
         except OSError as exc:
             return refuse(f"--csv {args.csv}: could not be written ({exc.strerror or exc}); "
                           "the results above are complete", PROG)

@@ -300,3 +300,19 @@ def test_points_and_studies_are_plain_data(pentane):
     assert data["points"][1]["summary"] == {"duty_W": None}
     assert data["points"][0]["summary"]["duty_W"] > 0.0
     assert math.isfinite(data["points"][0]["summary"]["duty_W"])
+
+
+def test_fit_recovers_a_multiplier_on_the_boiling_coefficient(chiller):
+    """The engine scales the boiling method's coefficient by boiling.htc_factor; a
+    rating made with 0.6 is fitted back from its chilled-water outlet temperature and
+    duty. Noise-free data, as for the fouling above: 0.5 % is far inside the
+    uncertainty the tolerances give, and far outside the solver's own tolerance."""
+    plant = rating.rate(catalogue.with_value(chiller, "boiling.htc_factor", 0.6))
+    measured = [Measurement("heating_outlet_temperature_K",
+                            plant.summary["heating_outlet_temperature_K"], 0.1),
+                Measurement("duty_W", plant.summary["duty_W"], 0.02 * plant.summary["duty_W"])]
+    result = fit(chiller, measured, [Parameter("boiling.htc_factor", 0.2, 2.0)],
+                 executor=InlineExecutor())
+    assert result.status == "fitted", result.warnings
+    assert result.values["boiling.htc_factor"] == pytest.approx(0.6, rel=5e-3)
+    assert 0.0 < result.uncertainty["boiling.htc_factor"] < 0.6
