@@ -52,26 +52,6 @@ COLD_START = ("Cold start: a first call takes about 5 to 15 s before the first r
 #: Set to 1 to see the traceback of an internal error (for a bug report).
 DEBUG_VARIABLE = "EBULLIO_DEBUG"
 
-# Rows of the readable table: (summary key, label, scale, offset, unit).
-_ROWS = (
-    ("duty_W", "Duty", 1e-3, 0.0, "kW"),
-    ("duty_heating_side_W", "Duty, heating side", 1e-3, 0.0, "kW"),
-    ("area_m2", "Area (outside)", 1.0, 0.0, "m2"),
-    ("u_service_W_m2K", "U service", 1.0, 0.0, "W/m2K"),
-    ("u_clean_W_m2K", "U clean", 1.0, 0.0, "W/m2K"),
-    ("mean_temperature_difference_K", "Mean temperature difference", 1.0, 0.0, "K"),
-    ("over_design_pct", "Over-design", 1.0, 0.0, "%"),
-    ("exit_quality", "Exit vapour quality", 1.0, 0.0, "-"),
-    ("exit_temperature_K", "Exit temperature", 1.0, -273.15, "degC"),
-    ("pressure_drop_boiling_Pa", "Pressure drop, boiling side", 1e-3, 0.0, "kPa"),
-    ("pressure_drop_heating_Pa", "Pressure drop, heating side", 1e-3, 0.0, "kPa"),
-    ("heating_outlet_temperature_K", "Heating medium outlet", 1.0, -273.15, "degC"),
-    ("max_heat_flux_W_m2", "Largest local heat flux", 1e-3, 0.0, "kW/m2"),
-    ("max_chf_ratio", "Largest flux / critical flux", 1.0, 0.0, "-"),
-    ("dryout_z_m", "Dryout starts at", 1.0, 0.0, "m"),
-)
-
-
 class _Parser(argparse.ArgumentParser):
     """A usage error is one line too, with exit status 2."""
 
@@ -219,10 +199,10 @@ def vendor_table(comparison) -> str:
     lines = [f"  Vendor figures{f' ({comparison.source})' if comparison.source else ''}:"
              f" {describe(comparison)}"]
     for r in comparison.rows:
-        _, _, scale, offset, unit = _row_for(r.key or r.figure)
+        unit = _label_unit(r.key or r.figure)[1]
         note = f"  ({r.note})" if r.note else ""
-        lines.append(f"    {vendor_label(r.figure):<28} vendor {_fmt(r.vendor, scale, offset):>10}"
-                     f"  Ebullio {_fmt(r.ebullio, scale, offset):>10} {unit:<7}"
+        lines.append(f"    {vendor_label(r.figure):<28} vendor {_fmt(r.vendor):>10}"
+                     f"  Ebullio {_fmt(r.ebullio):>10} {unit:<7}"
                      f" {deviation_text(r) if r.deviation is not None else '':>14}  {r.verdict}{note}")
     return "\n".join(lines)
 
@@ -246,48 +226,39 @@ def write_csv(result, path: Path) -> Path:
 
 # --- the readable table ----------------------------------------------------------------
 
-# Display of further summary keys by their unit suffix: (suffix, scale, offset, unit).
-_SUFFIXES = (
-    ("_kg_m_s2", 1.0, 0.0, "kg/m s2"),
-    ("_W_m2K", 1.0, 0.0, "W/m2K"), ("_W_m2", 1e-3, 0.0, "kW/m2"), ("_kg_s", 1.0, 0.0, "kg/s"),
-    ("_m_s", 1.0, 0.0, "m/s"), ("_m2", 1.0, 0.0, "m2"), ("_Pa", 1e-3, 0.0, "kPa"),
-    ("_K", 1.0, -273.15, "degC"), ("_W", 1e-3, 0.0, "kW"), ("_pct", 1.0, 0.0, "%"),
-    ("_m", 1.0, 0.0, "m"),
-)
+def _label_unit(key: str) -> tuple[str, str]:
+    """Label and SI unit of a summary key, from the catalogue (the key itself if unknown)."""
+    from .catalogue import SUMMARY
+
+    field = SUMMARY.get(key)
+    if field is None:
+        return key, ""
+    return field.label, "" if field.unit in ("-", "") else field.unit
 
 
-def _row_for(key):
-    if key.endswith("_residual_Pa"):  # a small remainder: in Pa, not kPa
-        return key, key[:-3].replace("_", " ").capitalize(), 1.0, 0.0, "Pa"
-    for suffix, scale, offset, unit in _SUFFIXES:
-        if key.endswith(suffix):
-            label = key[: -len(suffix)].replace("_", " ")
-            if unit == "degC" and not label.startswith(("t ", "temperature")) \
-                    and "temperature" not in label:
-                scale, offset, unit = 1.0, 0.0, "K"       # a temperature difference
-            return key, label[0].upper() + label[1:], scale, offset, unit
-    return key, key.replace("_", " ").capitalize(), 1.0, 0.0, "-"
-
-
-def _fmt(v, scale, offset):
+def _fmt(v) -> str:
+    """A value for the table: 4 significant digits, no exponent for everyday sizes."""
     if v is None:
         return "not computed"
-    if isinstance(v, str):
-        return v
-    shown = v * scale + offset
-    return f"{shown:,.4g}" if abs(shown) < 1e6 else f"{shown:.4e}"
+    if isinstance(v, str) or isinstance(v, bool):
+        return str(v)
+    text = f"{v:.4g}"
+    if "e" in text and 1e-3 <= abs(v) < 1e12:
+        text = f"{float(text):,.0f}"
+    elif "e" not in text and abs(v) >= 1e3:
+        text = f"{float(text):,.0f}" if float(text).is_integer() else f"{float(text):,}"
+    return text
 
 
 def table(result) -> str:
-    """A readable summary of one result."""
+    """A readable summary of one result: every summary figure with the catalogue's label
+    and SI unit (the units the warnings are written in), then the warnings."""
     lines = [f"Case: {result.name}  ({result.type})  status: {result.status}"]
     if result.message and result.message != "rated":
         lines.append(f"  {result.message}")
-    known = {row[0] for row in _ROWS}
-    rows = [r for r in _ROWS if r[0] in result.summary]
-    rows += [_row_for(k) for k in result.summary if k not in known]
-    for key, label, scale, offset, unit in rows:
-        lines.append(f"  {label:<34} {_fmt(result.summary[key], scale, offset):>14}  {unit}")
+    for key, value in result.summary.items():
+        label, unit = _label_unit(key)
+        lines.append(f"  {label:<40} {_fmt(value):>14}  {unit}".rstrip())
     for w in result.warnings:
         where = f" at z = {w.z_m:.3f} m" if w.z_m is not None else ""
         lines.append(f"  [{w.severity}] {w.code}{where}: {w.message}")

@@ -26,7 +26,7 @@ def run(argv, capsys):
 def test_summary_table_and_caution(capsys):
     code, out, err = run([CHILLER], capsys)
     assert code == 0 and err == ""
-    assert "Chiller E-3 at design load" in out and "Duty" in out and "kW" in out
+    assert "Chiller E-3 at design load" in out and "Duty" in out and " W\n" in out
     assert "qualified engineer" in out
 
 
@@ -53,6 +53,20 @@ def test_case_selection_and_csv(tmp_path, capsys):
     assert "qualified engineer" in lines[0]          # the caution, one cell
     assert lines[1].startswith("z_m,p_Pa,")
     assert len(lines) - 2 == len(data["cases"][0]["profiles"]["z_m"])
+
+
+def test_the_table_takes_labels_and_units_from_the_catalogue(capsys):
+    from rating.catalogue import SUMMARY
+    code, out, _ = run([PENTANE, "--case", "C5 vaporiser V-12 performance"], capsys)
+    assert code == 0
+    # Over-design needs a required duty: a performance rating does not compute it.
+    assert "not computed" in out and " 0  %" not in out
+    label, unit = SUMMARY["performance_duty_W"].label, SUMMARY["performance_duty_W"].unit
+    assert label == "Duty of the installed area" and label in out and unit == "W"
+    # The warnings are written in SI; so is the table (no degC beside a K in a warning).
+    assert "degC" not in out and "kPa" not in out
+    row = next(line for line in out.splitlines() if line.strip().startswith("Exit temperature"))
+    assert row.rstrip().endswith(" K")
 
 
 def test_error_severity_gives_exit_1(tmp_path, capsys):

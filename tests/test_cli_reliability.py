@@ -15,6 +15,11 @@ import subprocess
 import sys
 from pathlib import Path
 
+try:
+    import fcntl
+except ImportError:  # Windows
+    fcntl = None
+
 import pytest
 
 import rating
@@ -118,10 +123,14 @@ def test_a_closed_pipe_ends_the_output_quietly(capsys, monkeypatch):
     assert capsys.readouterr().err == ""
 
 
+@pytest.mark.skipif(not hasattr(fcntl, "F_SETPIPE_SZ"), reason="pipe size is set on Linux")
 def test_a_closed_pipe_as_a_process(tmp_path):
-    # ebullio-rate FILE --json | head -c 100: the reader goes after 100 bytes.
+    # ebullio-rate FILE --json | head -c 100: the reader goes after 100 bytes. The pipe
+    # is made smaller than the output (the child needs seconds to start), so that the
+    # writer meets the closed pipe instead of leaving everything in the buffer.
     proc = subprocess.Popen([sys.executable, "-m", "rating.cli", str(CHILLER), "--json"],
                             cwd=ROOT, stdout=subprocess.PIPE, stderr=subprocess.PIPE)
+    fcntl.fcntl(proc.stdout.fileno(), fcntl.F_SETPIPE_SZ, 4096)
     head = proc.stdout.read(100)
     proc.stdout.close()
     err = proc.stderr.read().decode()

@@ -479,9 +479,10 @@ def test_cli_prints_the_kettle_keys(capsys):
     code = cli.main([str(SAMPLE)])
     out = capsys.readouterr().out
     assert code == 0
-    for label in ("Bundle max heat flux", "Bundle factor", "Vapour generation",
-                  "Surface vapour velocity limit", "Min kettle diameter"):
-        assert label in out, label
+    from rating.catalogue import SUMMARY
+    for key in ("bundle_max_heat_flux_W_m2", "bundle_factor", "vapour_generation_kg_s",
+                "surface_vapour_velocity_limit_m_s", "min_kettle_diameter_m"):
+        assert SUMMARY[key].label in out, key
 
 
 def test_project_round_trip(tmp_path):
