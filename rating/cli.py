@@ -199,10 +199,10 @@ def vendor_table(comparison) -> str:
     lines = [f"  Vendor figures{f' ({comparison.source})' if comparison.source else ''}:"
              f" {describe(comparison)}"]
     for r in comparison.rows:
-        unit = _label_unit(r.key or r.figure)[1]
+        unit = label_unit(r.key or r.figure)[1]
         note = f"  ({r.note})" if r.note else ""
-        lines.append(f"    {vendor_label(r.figure):<28} vendor {_fmt(r.vendor):>10}"
-                     f"  Ebullio {_fmt(r.ebullio):>10} {unit:<7}"
+        lines.append(f"    {vendor_label(r.figure):<28} vendor {format_figure(r.vendor):>10}"
+                     f"  Ebullio {format_figure(r.ebullio):>10} {unit:<7}"
                      f" {deviation_text(r) if r.deviation is not None else '':>14}  {r.verdict}{note}")
     return "\n".join(lines)
 
@@ -226,7 +226,7 @@ def write_csv(result, path: Path) -> Path:
 
 # --- the readable table ----------------------------------------------------------------
 
-def _label_unit(key: str) -> tuple[str, str]:
+def label_unit(key: str) -> tuple[str, str]:
     """Label and SI unit of a summary key, from the catalogue (the key itself if unknown)."""
     from .catalogue import SUMMARY
 
@@ -236,7 +236,7 @@ def _label_unit(key: str) -> tuple[str, str]:
     return field.label, "" if field.unit in ("-", "") else field.unit
 
 
-def _fmt(v) -> str:
+def format_figure(v) -> str:
     """A value for the table: 4 significant digits, no exponent for everyday sizes."""
     if v is None:
         return "not computed"
@@ -257,8 +257,8 @@ def table(result) -> str:
     if result.message and result.message != "rated":
         lines.append(f"  {result.message}")
     for key, value in result.summary.items():
-        label, unit = _label_unit(key)
-        lines.append(f"  {label:<40} {_fmt(value):>14}  {unit}".rstrip())
+        label, unit = label_unit(key)
+        lines.append(f"  {label:<40} {format_figure(value):>14}  {unit}".rstrip())
     for w in result.warnings:
         where = f" at z = {w.z_m:.3f} m" if w.z_m is not None else ""
         lines.append(f"  [{w.severity}] {w.code}{where}: {w.message}")

@@ -23,8 +23,8 @@ import sys
 
 from pathlib import Path
 
-from .cli import (CAUTION, EXIT_BAD_INPUT, EXIT_FINDINGS, EXIT_INTERNAL, EXIT_RATED, _fmt,
-                  _row_for, guarded, refuse, write_out)
+from .cli import (CAUTION, EXIT_BAD_INPUT, EXIT_FINDINGS, EXIT_INTERNAL, EXIT_RATED,
+                  format_figure, guarded, label_unit, refuse, write_out)
 
 PROG = "ebullio-study"
 
@@ -217,17 +217,12 @@ def _run(args):
 # --- readable tables ----------------------------------------------------------------
 
 def _cell(key, value):
-    _, _, scale, offset, _ = _row_for(key)
-    return _fmt(value, scale, offset) if value is not None else "not computed"
+    return format_figure(value)
 
 
 def _heading(key):
-    from . import catalogue
-
-    _, label, _, _, unit = _row_for(key)
-    if key in catalogue.SUMMARY:
-        label = catalogue.SUMMARY[key].label
-    return f"{label} [{unit}]"
+    label, unit = label_unit(key)
+    return f"{label} [{unit}]" if unit else label
 
 
 def _input_heading(path):

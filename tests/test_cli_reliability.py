@@ -230,13 +230,25 @@ def test_one_rule_for_the_increments_everywhere(tmp_path, capsys):
 
 # --- 8: the cold start --------------------------------------------------------------------
 
+def _console_script() -> tuple[str, str]:
+    """Module and function of the installed ``ebullio-rate``, as pyproject.toml names them."""
+    import tomllib
+
+    with open(ROOT / "pyproject.toml", "rb") as fh:
+        target = tomllib.load(fh)["project"]["scripts"]["ebullio-rate"]
+    module, _, function = target.partition(":")
+    return module, function
+
+
 def test_help_does_not_load_the_property_library_and_states_the_cold_start():
+    module, function = _console_script()
     probe = ("import sys, contextlib, io\n"
-             "from rating import cli\n"
+             f"from {module} import {function} as main\n"
              "with contextlib.redirect_stdout(io.StringIO()) as out:\n"
-             "    try: cli.main(['--help'])\n"
+             "    try: main(['--help'])\n"
              "    except SystemExit: pass\n"
-             "heavy = [m for m in ('CoolProp', 'numpy', 'scipy', 'rating.properties') "
+             "heavy = [m for m in ('CoolProp', 'numpy', 'scipy', 'matplotlib', 'PySide6', "
+             "'pint', 'rating.properties') "
              "if m in sys.modules]\n"
              "print(heavy, 'cold start' in out.getvalue().lower())\n")
     proc = subprocess.run([sys.executable, "-c", probe], cwd=ROOT, capture_output=True,

@@ -154,10 +154,11 @@ def test_profiles_csv_beside_the_report_with_units_in_the_header(rated, reports)
     csv_files = [p for p in written if p.suffix == ".csv"]
     assert len(csv_files) == 1
     lines = csv_files[0].read_text(encoding="utf-8").splitlines()
-    head = lines[0].split(",")
+    assert "qualified engineer" in lines[0]           # the caution, first
+    head = lines[1].split(",")
     assert head[0] == "Position along the heated length [ft]"
     assert "Heat flux [Btu/(h·ft²)]" in head and "Pressure [psia]" in head
-    assert len(lines) - 1 == len(result.profiles["z_m"])
+    assert len(lines) - 2 == len(result.profiles["z_m"])
     last_z_ft = float(lines[-1].split(",")[0])
     assert last_z_ft == pytest.approx(result.profiles["z_m"][-1] / 0.3048, rel=1e-5)
 

@@ -3,5 +3,14 @@
 ``write_report(project, cases, path, units, source_path=None)`` writes a PDF or an
 HTML file of the given cases; the desktop's report command and ``ebullio-rate
 --report`` both call it.
+
+The writer is imported on first use: ``ebullio-rate``'s entry point lives in this
+package, and ``ebullio-rate --help`` must not load matplotlib, Qt or numpy.
 """
-from .writer import write_report  # noqa: F401
+
+
+def __getattr__(name):
+    if name == "write_report":
+        from .writer import write_report
+        return write_report
+    raise AttributeError(f"module {__name__!r} has no attribute {name!r}")

@@ -6,6 +6,7 @@ import math
 from pathlib import Path
 
 from rating.catalogue import PROFILES
+from rating.cli import CAUTION
 from gui.units import to_display, unit_label
 
 
@@ -35,6 +36,7 @@ def write_profiles_csv(result, path, units: str = "SI") -> Path:
     quantities = [PROFILES[k].quantity if k in PROFILES else "text" for k in keys]
     with open(path, "w", newline="", encoding="utf-8") as fh:
         w = csv.writer(fh)
+        w.writerow([f"Caution: {CAUTION}"])   # one cell, as in ebullio-rate --csv
         w.writerow([header(k, units) for k in keys])
         for row in zip(*(result.profiles[k] for k in keys)):
             w.writerow([_cell(v, q, units) for v, q in zip(row, quantities)])
