@@ -33,7 +33,9 @@ def main(argv=None) -> int:
         proc = subprocess.run(command, cwd=ROOT, env=env, capture_output=True, text=True)
         wall = time.perf_counter() - t0
         for line in proc.stdout.splitlines():
-            if line.startswith("kill test:") or " passed" in line or " failed" in line:
+            if "kill test:" in line:
+                print(line[line.index("kill test:"):])
+            elif " passed" in line or " failed" in line:
                 print(line.strip(". "))
         counts = json.loads(tally.read_text()) if tally.exists() else {}
     print(f"fuzz ({'fast subset' if fast else 'full set'}): "
