@@ -92,8 +92,10 @@ class Tubes:
         return TUBE_MATERIALS[self.material]
 
     @property
-    def tubes_per_pass(self) -> int:
-        return max(1, self.count // self.passes)
+    def tubes_per_pass(self) -> float:
+        """Tubes in one pass: a count the passes do not divide is spread evenly over them
+        (66 tubes in 4 passes march as 16.5 a pass), so that every tube is rated."""
+        return self.count / self.passes
 
     @property
     def flow_area(self) -> float:

@@ -51,6 +51,13 @@ def inputs_shown(case) -> tuple[dict, list[RatingWarning]]:
         summary["heating_saturation_temperature_K"] = hm.saturation_temperature \
             or _saturation_temperature(hm.fluid, hm.pressure)
     warnings = []
+    t = case.tubes
+    if t.count % t.passes:
+        warnings.append(RatingWarning(
+            "tubes-spread-over-passes", "info",
+            f"{t.count} tubes in {t.passes} passes: marched as {t.tubes_per_pass:.4g} tubes a "
+            f"pass (passes of {t.count // t.passes + 1} and {t.count // t.passes} tubes taken "
+            "at their mean flow area), so every tube counts"))
     if case.kettle is not None:
         for name in ("kettle_diameter", "port_diameter", "weir_height"):
             summary[f"{name}_m"] = getattr(case.kettle, name)

@@ -434,3 +434,37 @@ def test_coefficient_overrides_are_stored_and_refused_when_both_are_given():
     with pytest.raises(InputError) as info:
         BoilingStream("Water", 1.0, 2e5, htc_factor=0.0)
     assert info.value.field == "htc_factor" and ">= 0.05" in str(info.value)
+
+
+# --------------------------------------------------------------- item 1: every tube marched
+
+def test_tubes_left_over_by_the_passes_are_marched():
+    # 66 tubes in 4 passes: 16.5 a pass on average; both films fixed, so the duty is
+    # U A dT with the whole bundle's area (Q = U A dT with series resistances, Incropera &
+    # DeWitt ch. 3 and 11), the boiling fluid staying saturated (a small pressure drop).
+    import math
+
+    from rating.case import Case, Tubes
+
+    H_b, H_h, d_o, bwg, L = 1500.0, 4000.0, 0.01905, 16, 2.0
+    case = Case(
+        name="66 tubes in 4 passes", type="evaporator",
+        tubes=Tubes(count=66, length=L, outer_diameter=d_o, bwg=bwg, passes=4,
+                    orientation="horizontal", material="stainless_steel_316"),
+        boiling=BoilingStream("n-Pentane", 1.0, 5.0e5, inlet_quality=0.05,
+                              htc_fixed=H_b),
+        heating=HeatingMedium(kind="steam", pressure=1.5e5, htc_fixed=H_h))
+    r = rating.rate(case)
+    assert r.status != "failed", r.message
+    t = case.tubes
+    d_i = t.inner_diameter
+    U_o = 1 / (1 / H_h + d_o * math.log(d_o / d_i) / (2 * t.conductivity) + d_o / (d_i * H_b))
+    p = r.profiles
+    dT = [p["t_heating_K"][i] - p["t_process_K"][i] for i in range(len(p["z_m"]))]
+    z = p["z_m"]
+    mean_dT = sum(0.5 * (a + b) * (z1 - z0) for a, b, z0, z1 in zip(dT, dT[1:], z, z[1:])) / z[-1]
+    area = 66 * math.pi * d_o * L
+    assert r.summary["exit_quality"] < 0.9  # saturated throughout
+    assert r.summary["duty_W"] == pytest.approx(U_o * area * mean_dT, rel=2e-3)
+    assert r.summary["area_m2"] == pytest.approx(area, rel=1e-12)
+    assert "tubes-spread-over-passes" in codes(r)
