@@ -62,6 +62,14 @@ PINS = [
      None, 37.9367793, None),
     ("vendor-proposals.ebullio", 1, 1500000.0, 0.6201769, 307.530408, 335.250377,
      None, None, 26.5019643),
+    # issue 16's samples (a saturation table, a pseudo-pure mixture), from the code of the
+    # day they were added
+    ("solvent-table-evaporator.ebullio", 0, 201057.546, 0.514507035, 392.663799, 413.15,
+     None, None, None),
+    ("solvent-table-evaporator.ebullio", 1, 168460.448, 0.392479578, 394.409166, 413.15,
+     None, None, None),
+    ("light-ends-kettle.ebullio", 0, 6204454.91, 0.726665949, 308.15, 378.15, None, None, None),
+    ("light-ends-kettle.ebullio", 1, 5618567.35, 0.651506866, 308.15, 378.15, None, None, None),
 ]
 
 
