@@ -87,7 +87,9 @@ def inputs_shown(case) -> tuple[dict, list[RatingWarning]]:
             f"{fluid.name} is rated as a pseudo-pure fluid: boiling at its bubble point, with "
             f"a boiling range (dew minus bubble point) of {span:.2f} K at the inlet pressure; "
             "the bubble point's rise along the path and the mass-transfer penalty on boiling "
-            "are not modelled"))
+            "are not modelled" + ("; a kettle's mixture correction needs kettle.boiling_range"
+                                  if case.kettle is not None and not case.kettle.boiling_range
+                                  else "")))
     elif isinstance(b.fluid, dict):
         warnings.append(RatingWarning(
             "user-property-table", "info",
