@@ -468,3 +468,32 @@ def test_tubes_left_over_by_the_passes_are_marched():
     assert r.summary["duty_W"] == pytest.approx(U_o * area * mean_dT, rel=2e-3)
     assert r.summary["area_m2"] == pytest.approx(area, rel=1e-12)
     assert "tubes-spread-over-passes" in codes(r)
+
+
+# --------------------------------------------------------------- item 4: thermosiphon duty
+
+def test_a_thermosiphon_answers_the_required_duty_question():
+    # The question the other types answer; over-design on the area basis, which is Serth &
+    # Lestina's U_service / U_required - 1 with U_required = Q_required / (A MTD).
+    from rating.case import QUESTIONS
+
+    duty_question = next(q for q in QUESTIONS if q != "performance")
+    base = sample("stripper-reboiler.ebullio")
+    draft = cat.set_value(cat.case_to_draft(base), "question", duty_question)
+    assert cat.applies("required_duty", draft) and cat.applies("question", draft)
+    Q_req = 2.0e6
+    case = cat.draft_to_case(cat.set_value(draft, "required_duty", Q_req))
+    r = rating.rate(case)
+    assert r.status != "failed", r.message
+    s = r.summary
+    u_required = Q_req / (s["area_m2"] * s["mean_temperature_difference_K"])
+    assert s["u_required_W_m2K"] == pytest.approx(u_required, rel=1e-9)
+    assert s["over_design_pct"] == pytest.approx(
+        (s["u_service_W_m2K"] / u_required - 1) * 100, rel=1e-6)
+    assert s["required_area_m2"] == pytest.approx(s["area_m2"] * Q_req / s["duty_W"], rel=1e-9)
+    assert s["over_surface_pct"] == pytest.approx(
+        (s["u_clean_W_m2K"] / u_required - 1) * 100, rel=1e-6)
+    # more than the unit gives: negative over-design and an error naming the shortfall
+    short = rating.rate(cat.with_value(case, "required_duty", 3.0e6))
+    assert short.summary["over_design_pct"] < 0
+    assert "duty-not-reached" in codes(short)

@@ -546,6 +546,13 @@ def rate_thermosiphon(case, *, increments=None, progress=None, cancel=None) -> R
     if case.required_duty:
         summary["required_duty_W"] = case.required_duty
         summary["over_design_pct"] = (summary["duty_W"] / case.required_duty - 1.0) * 100.0
+    if case.required_duty:  # the duty question's other figures, as the other types give them
+        summary["required_area_m2"] = summary["area_m2"] * case.required_duty / summary["duty_W"]
+        if summary["mean_temperature_difference_K"]:
+            u_req = case.required_duty / (summary["area_m2"]
+                                          * summary["mean_temperature_difference_K"])
+            summary["u_required_W_m2K"] = u_req
+            summary["over_surface_pct"] = (summary["u_clean_W_m2K"] / u_req - 1.0) * 100.0
     warnings = checks.evaluate(case, outcome, fluid=fluid, service="thermosiphon")
     warnings += _loop_warnings(case, fluid, loop, chosen, crossings, scan, summary)
     if progress is not None:
