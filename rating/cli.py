@@ -112,6 +112,11 @@ def write_out(text: str) -> bool:
     except BrokenPipeError:
         _quiet_stdout()
         return False
+    except OSError as exc:  # a full disk behind a redirection, a device that refuses
+        from .errors import InputError
+
+        _quiet_stdout()
+        raise InputError(f"standard output cannot be written ({exc.strerror or exc})") from None
     return True
 
 

@@ -123,6 +123,21 @@ def test_a_closed_pipe_ends_the_output_quietly(capsys, monkeypatch):
     assert capsys.readouterr().err == ""
 
 
+def test_a_full_disk_behind_stdout_is_one_line(capsys, monkeypatch):
+    import errno
+
+    class FullDisk(io.StringIO):
+        def write(self, text):
+            raise OSError(errno.ENOSPC, "No space left on device")
+
+    monkeypatch.setattr(sys, "stdout", FullDisk())
+    code = cli.main([str(CHILLER), "--increments", "10"])
+    err = capsys.readouterr().err
+    assert code == cli.EXIT_BAD_INPUT and "Traceback" not in err
+    assert err.strip().splitlines() == ["ebullio-rate: standard output cannot be written "
+                                        "(No space left on device)"]
+
+
 @pytest.mark.skipif(not hasattr(fcntl, "F_SETPIPE_SZ"), reason="pipe size is set on Linux")
 def test_a_closed_pipe_as_a_process(tmp_path):
     # ebullio-rate FILE --json | head -c 100: the reader goes after 100 bytes. The pipe
