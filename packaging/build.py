@@ -31,6 +31,9 @@ ROOT = HERE.parent
 DIST = HERE / "dist"
 WORK = HERE / "build"
 SPEC = HERE / "ebullio.spec"
+# The headless commands: links to the one program, which picks the command by the
+# name it was started under (launchers/ebullio.py); the same names as the package's.
+COMMAND_LINKS = ("ebullio-rate", "ebullio-study")
 
 
 def folder_size(path: Path) -> int:
@@ -54,8 +57,12 @@ def freeze(distpath: Path, workpath: Path, keep_all: bool) -> float:
     return time.monotonic() - start
 
 
-def add_desktop_files(bundle: Path) -> None:
-    """The .desktop entry, the file type, the icons, their installer and a read-me."""
+def finish(bundle: Path) -> None:
+    """The command links, the .desktop entry, the file type, the icons, their
+    installer and a read-me."""
+    for name in COMMAND_LINKS:
+        (bundle / name).unlink(missing_ok=True)
+        (bundle / name).symlink_to("ebullio")          # relative: the folder can move
     share = bundle / "share"
     (share / "applications").mkdir(parents=True, exist_ok=True)
     shutil.copy2(HERE / "desktop" / "ebullio.desktop", share / "applications" / "ebullio.desktop")
@@ -98,7 +105,7 @@ def main(argv=None) -> int:
 
     bundle = DIST / "ebullio"
     report["freeze_s"] = round(freeze(DIST, WORK, keep_all=False), 1)
-    add_desktop_files(bundle)
+    finish(bundle)
     start = time.monotonic()
     archive = pack(bundle, version)
     report["pack_s"] = round(time.monotonic() - start, 1)

@@ -9,15 +9,20 @@ environment: PATH=/usr/bin:/bin and a scratch HOME, nothing else (no virtual
 environment, no PYTHONPATH or PYTHONHOME), from the scratch folder.
 
 1. ``ebullio-rate --json`` on every bundled sample gives the same JSON as the
-   source tree's ``python -m rating.cli --json`` in this environment: the same
-   exit status and every number equal (exact equality after parsing; no field
-   is left out of the comparison).
-2. ``ebullio-rate`` on a missing file exits 2 with one line and no traceback.
+   source tree's command (``python -m gui.report.command --json``, the package's
+   ebullio-rate) in this environment: the same exit status and every number
+   equal (exact equality after parsing; no field is left out of the comparison).
+2. ``ebullio-study`` (a three-point sweep on two worker processes) gives the same
+   JSON as ``python -m rating.study_cli``; ``ebullio-rate --report`` writes a PDF
+   with no screen (its first pages kept as pictures); ``ebullio-rate`` on a
+   missing file exits 2 with one line and no traceback.
 3. The desktop application starts offscreen on a sample and keeps running with
    no traceback; its picture mode opens a sample, rates it and writes the main
    window's picture (kept in packaging/dist/screenshots/ to look at).
-4. The .desktop entry passes desktop-file-validate and the file type registers
-   with update-mime-database, where those freedesktop tools are installed.
+4. install-desktop-entry.sh (into a scratch XDG_DATA_HOME) writes an entry that
+   starts this folder's ebullio, desktop-file-validate accepts it, and the file
+   type registers with update-mime-database and update-desktop-database, where
+   those freedesktop tools are installed; --remove takes everything out again.
 Exit status 0 when everything holds, 1 otherwise.
 """
 from __future__ import annotations
@@ -79,8 +84,9 @@ def check_headless(bundle: Path, home: Path, check: Check) -> None:
                                 capture_output=True, text=True, env=minimal_env(home),
                                 cwd=bundle.parent)
         t1 = time.monotonic()
-        source = subprocess.run([sys.executable, "-m", "rating.cli", str(ROOT / "samples" / sample.name),
-                                 "--json"], capture_output=True, text=True, cwd=ROOT)
+        source = subprocess.run([sys.executable, "-m", "gui.report.command",
+                                 str(ROOT / "samples" / sample.name), "--json"],
+                                capture_output=True, text=True, cwd=ROOT)
         t2 = time.monotonic()
         try:
             diff = differences(json.loads(frozen.stdout), json.loads(source.stdout))
@@ -91,6 +97,34 @@ def check_headless(bundle: Path, home: Path, check: Check) -> None:
               f"{sample.name}: {cases} cases, exit {frozen.returncode} (source {source.returncode}), "
               f"{'identical JSON' if not diff else f'{len(diff)} differences: ' + '; '.join(diff[:3])}"
               f" [bundle {t1 - t0:.1f} s, source {t2 - t1:.1f} s]")
+    study = ["pentane-vaporiser.ebullio", "--case", "C5 vaporiser V-12 performance",
+             "--vary", "tubes.length=2:4:3", "--json", "--workers", "2"]
+    frozen = subprocess.run([str(bundle / "ebullio-study"), str(bundle / "_internal" / "samples" / study[0])]
+                            + study[1:], capture_output=True, text=True, env=minimal_env(home))
+    source = subprocess.run([sys.executable, "-m", "rating.study_cli", str(ROOT / "samples" / study[0])]
+                            + study[1:], capture_output=True, text=True, cwd=ROOT)
+    try:
+        diff = differences(json.loads(frozen.stdout), json.loads(source.stdout))
+    except json.JSONDecodeError as exc:
+        diff = [f"not JSON ({exc}); stderr: {frozen.stderr.strip()[-300:]}"]
+    check(frozen.returncode == source.returncode and not diff,
+          f"ebullio-study, a sweep of 3 points on 2 worker processes: exit {frozen.returncode} "
+          f"(source {source.returncode}), "
+          f"{'identical JSON' if not diff else f'{len(diff)} differences: ' + '; '.join(diff[:3])}")
+    pdf = home / "report.pdf"
+    sample = bundle / "_internal" / "samples" / "stripper-reboiler.ebullio"
+    t0 = time.monotonic()
+    run = subprocess.run([str(bundle / "ebullio-rate"), str(sample), "--report", str(pdf)],
+                         capture_output=True, text=True, env=minimal_env(home))
+    written = pdf.exists() and pdf.read_bytes()[:5] == b"%PDF-"
+    check(run.returncode in (0, 1) and written and "Traceback" not in run.stderr,
+          f"ebullio-rate --report writes a PDF of {sample.name} with no screen "
+          f"({pdf.stat().st_size if written else 0:,} bytes, exit {run.returncode}, "
+          f"{time.monotonic() - t0:.0f} s)" + (f"; stderr: {run.stderr.strip()[-300:]}" if not written else ""))
+    if written and shutil.which("pdftoppm"):
+        SHOTS.mkdir(parents=True, exist_ok=True)
+        subprocess.run(["pdftoppm", "-png", "-r", "60", "-f", "1", "-l", "2", str(pdf),
+                        str(SHOTS / "report-page")], check=False)
     bad = subprocess.run([str(bundle / "ebullio-rate"), str(home / "no-such-file.ebullio")],
                          capture_output=True, text=True, env=minimal_env(home))
     lines = bad.stderr.strip().splitlines()
@@ -134,31 +168,43 @@ def check_app(bundle: Path, home: Path, check: Check) -> None:
           f"of the main window in {time.monotonic() - t0:.0f} s"
           + (f"; stderr: {run.stderr.strip()[-400:]}" if run.returncode else ""))
     if pictures:
-        shutil.rmtree(SHOTS, ignore_errors=True)
-        SHOTS.mkdir(parents=True)
+        SHOTS.mkdir(parents=True, exist_ok=True)
         for p in sorted(out.glob("*.png")):
             shutil.copy2(p, SHOTS / p.name)
         print(f"  (pictures kept in {SHOTS.relative_to(ROOT)}/)")
 
 
 def check_desktop_files(bundle: Path, home: Path, check: Check) -> None:
-    entry = bundle / "share" / "applications" / "ebullio.desktop"
+    data = home / "data"
+    env = minimal_env(home, XDG_DATA_HOME=str(data))
+    run = subprocess.run([str(bundle / "install-desktop-entry.sh")], capture_output=True, text=True,
+                         env=env)
+    entry = data / "applications" / "ebullio.desktop"
+    exec_line = next((ln for ln in entry.read_text().splitlines() if ln.startswith("Exec=")), "") \
+        if entry.exists() else ""
+    check(run.returncode == 0 and exec_line == f'Exec="{bundle / "ebullio"}" %f',
+          f"install-desktop-entry.sh installs the entry: {exec_line or run.stderr.strip()}")
     if shutil.which("desktop-file-validate"):
-        run = subprocess.run(["desktop-file-validate", str(entry)], capture_output=True, text=True)
-        check(run.returncode == 0 and not run.stdout.strip(),
-              "desktop-file-validate accepts the entry" + (f": {run.stdout.strip()}" if run.stdout.strip() else ""))
+        v = subprocess.run(["desktop-file-validate", str(entry)], capture_output=True, text=True)
+        check(v.returncode == 0 and not v.stdout.strip(),
+              "desktop-file-validate accepts the installed entry" + (f": {v.stdout.strip()}" if v.stdout.strip() else ""))
     else:
         print("  (desktop-file-validate not installed: entry not validated)")
     if shutil.which("update-mime-database"):
-        mime = home / "mime"
-        (mime / "packages").mkdir(parents=True)
-        shutil.copy2(bundle / "share" / "mime" / "packages" / "ebullio.xml", mime / "packages")
-        run = subprocess.run(["update-mime-database", str(mime)], capture_output=True, text=True)
-        globs = (mime / "globs2").read_text() if (mime / "globs2").exists() else ""
-        check(run.returncode == 0 and "application/x-ebullio-project:*.ebullio" in globs,
-              "update-mime-database registers *.ebullio as application/x-ebullio-project")
+        globs = (data / "mime" / "globs2").read_text() if (data / "mime" / "globs2").exists() else ""
+        check("application/x-ebullio-project:*.ebullio" in globs,
+              "update-mime-database registered *.ebullio as application/x-ebullio-project")
     else:
         print("  (update-mime-database not installed: file type not registered)")
+    if shutil.which("update-desktop-database"):
+        cache = data / "applications" / "mimeinfo.cache"
+        text = cache.read_text() if cache.exists() else ""
+        check("application/x-ebullio-project=ebullio.desktop;" in text,
+              "update-desktop-database: .ebullio files open with the entry")
+    run = subprocess.run([str(bundle / "install-desktop-entry.sh"), "--remove"], capture_output=True,
+                         text=True, env=env)
+    left = [str(p.relative_to(data)) for p in data.rglob("ebullio*") if p.is_file()]
+    check(run.returncode == 0 and not left, f"--remove takes them out again (left: {left or 'nothing'})")
 
 
 def main(argv=None) -> int:
@@ -168,6 +214,7 @@ def main(argv=None) -> int:
         return 2
     given = Path(argv[0]).resolve()
     check = Check()
+    shutil.rmtree(SHOTS, ignore_errors=True)
     with tempfile.TemporaryDirectory(prefix="ebullio-bundle-check-") as scratch:
         scratch = Path(scratch)
         if given.is_file():

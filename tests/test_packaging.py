@@ -9,11 +9,10 @@ import ast
 import configparser
 import fnmatch
 import importlib
+import importlib.util
 import struct
 import xml.etree.ElementTree as ET
 from pathlib import Path
-
-import pytest
 
 from rating.project import EXTENSION
 
@@ -81,22 +80,21 @@ def test_icons_are_there_at_every_size_the_entry_and_type_name():
         assert png_size(PACKAGING / "icons" / f"ebullio-{size}.png") == (size, size)
 
 
-def _launcher_targets(name: str) -> list[str]:
-    tree = ast.parse((PACKAGING / "launchers" / name).read_text())
-    return [n.module for n in ast.walk(tree)
-            if isinstance(n, ast.ImportFrom) and [a.name for a in n.names] == ["main"]]
+def _launcher_targets() -> list[str]:
+    tree = ast.parse((PACKAGING / "launchers" / "ebullio.py").read_text())
+    return sorted(n.module for n in ast.walk(tree)
+                  if isinstance(n, ast.ImportFrom) and [a.name for a in n.names] == ["main"])
 
 
-@pytest.mark.parametrize("launcher", ["ebullio_rate.py"])
-def test_launchers_start_entry_points_that_exist(launcher):
-    targets = _launcher_targets(launcher)
-    assert targets
-    for module in targets:
-        assert callable(importlib.import_module(module).main), module
-
-
-def test_headless_launcher_starts_the_installed_command():
+def test_the_bundle_carries_every_command_the_package_installs():
     import tomllib
     scripts = tomllib.loads((PACKAGING.parent / "pyproject.toml").read_text())["project"]["scripts"]
-    assert scripts["ebullio-rate"] == "rating.cli:main"
-    assert _launcher_targets("ebullio_rate.py") == ["rating.cli"]
+    started = set(_launcher_targets())
+    for name, target in scripts.items():
+        module = target.removesuffix(":main")
+        assert module in started, f"{name}: the bundle's program does not start {target}"
+        assert callable(importlib.import_module(module).main), module
+    spec = importlib.util.spec_from_file_location("bundle_build", PACKAGING / "build.py")
+    build = importlib.util.module_from_spec(spec)
+    spec.loader.exec_module(build)
+    assert sorted(build.COMMAND_LINKS) == sorted(scripts)

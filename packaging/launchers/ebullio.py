@@ -1,16 +1,34 @@
-"""Entry of the bundled desktop application ``ebullio [FILE]`` (frozen by PyInstaller).
+"""Entry of the bundle's one program (frozen by PyInstaller).
 
-``ebullio --screenshots OUTDIR [--only NAME]`` runs the desktop's own picture
-maker (gui.screenshots) inside the bundle; the bundle check uses it to open and
-rate a sample offscreen and keep a picture of the main window.
+The bundle holds the program once, as ``ebullio``; ``ebullio-rate`` and
+``ebullio-study`` are links to it (build.py makes them), and the name it was
+started under picks the command, as the installed package's scripts do:
+
+    ebullio [FILE]                  the desktop application (gui.app)
+    ebullio-rate FILE ...           the headless rating, with --report
+    ebullio-study FILE ...          the headless studies
+    ebullio --screenshots OUTDIR    the desktop's picture maker (gui.screenshots),
+                                    which the bundle check uses
 """
 import multiprocessing
+import os
 import sys
 
-if __name__ == "__main__":
-    multiprocessing.freeze_support()      # a no-op unless a worker process starts here
-    if sys.argv[1:2] == ["--screenshots"]:
+
+def command(name: str, args: list[str]):
+    """The main function to run for a program name and its arguments."""
+    if name.startswith("ebullio-rate"):
+        from gui.report.command import main
+    elif name.startswith("ebullio-study"):
+        from rating.study_cli import main
+    elif args[:1] == ["--screenshots"]:
         from gui.screenshots import main
-        sys.exit(main(sys.argv[2:]))
-    from gui.app import main
-    sys.exit(main())
+        return lambda: main(args[1:])
+    else:
+        from gui.app import main
+    return main
+
+
+if __name__ == "__main__":
+    multiprocessing.freeze_support()      # study workers start from this executable
+    sys.exit(command(os.path.basename(sys.argv[0]), sys.argv[1:])())
