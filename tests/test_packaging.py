@@ -88,9 +88,10 @@ def _launcher_targets() -> list[str]:
 
 def test_the_bundle_carries_every_command_the_package_installs():
     import tomllib
-    scripts = tomllib.loads((PACKAGING.parent / "pyproject.toml").read_text())["project"]["scripts"]
+    project = tomllib.loads((PACKAGING.parent / "pyproject.toml").read_text())["project"]
+    scripts = project["scripts"]
     started = set(_launcher_targets())
-    for name, target in scripts.items():
+    for name, target in {**scripts, **project["gui-scripts"]}.items():
         module = target.removesuffix(":main")
         assert module in started, f"{name}: the bundle's program does not start {target}"
         assert callable(importlib.import_module(module).main), module
