@@ -29,6 +29,7 @@ from .plots import AlongTubePanel, BalancePanel
 from .results import CompareTable, FiguresTable, WarningsList
 from .runner import RATING, Runner
 from .sketch import UnitSketch
+from .studies_panel import StudiesPanel
 from .style import STATUS_COLOURS
 from .verdict import verdict
 
@@ -237,6 +238,8 @@ class MainWindow(QMainWindow):
         self.tabs.addTab(self.along, "Along the tube")
         self.tabs.addTab(self.balance, "Circulation")
         self.tabs.addTab(side, "Side by side")
+        self.studies = StudiesPanel.for_window(self)
+        self.tabs.addTab(self.studies, "Studies")
         split.addWidget(top)
         split.addWidget(self.tabs)
         split.setStretchFactor(0, 0)

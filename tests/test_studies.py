@@ -151,6 +151,19 @@ def test_cancel_on_a_process_pool(pentane, pool):
     assert rated[0].result.summary == serial.points[0].result.summary
 
 
+def test_a_thread_pool_works_and_a_closed_pool_fails_each_point_in_place(pentane):
+    import concurrent.futures as cf
+
+    with cf.ThreadPoolExecutor(2) as threads:
+        s = sweep(pentane, [Variation("tubes.length", (3.0, 2.0))], executor=threads)
+    assert [p.inputs["tubes.length"] for p in s.points] == [3.0, 2.0] and s.points[1].rated
+    closed = cf.ThreadPoolExecutor(1)
+    closed.shutdown()
+    s = sweep(pentane, [Variation("tubes.length", (2.0, -1.0))], executor=closed)
+    assert [p.status for p in s.points] == ["failed", REFUSED]
+    assert "not sent to a worker" in s.points[0].message
+
+
 # --- method spread -----------------------------------------------------------------------
 
 def test_spread_lists_every_applicable_method_once_with_a_positive_duty_spread(pentane, pool):

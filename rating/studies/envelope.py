@@ -152,8 +152,10 @@ class Envelope:
                       (float(v) if v is not None else None)) for v in row] for row in a]
 
         return {"study": "envelope", "case": self.case_name, "type": self.case_type,
-                "x": {"path": self.x.path, "unit": self.x.field.unit, "values": list(self.x.values)},
-                "y": {"path": self.y.path, "unit": self.y.field.unit, "values": list(self.y.values)},
+                "x": {"path": self.x.path, "unit": self.x.field.unit,
+                      "values": list(self.x.values)},
+                "y": {"path": self.y.path, "unit": self.y.field.unit,
+                      "values": list(self.y.values)},
                 "operating_point": list(self.operating_point),
                 "required_duty_W": self.required_duty,
                 "limits": {k: {"title": LIMITS[k], "within": plain(self.within[k]),

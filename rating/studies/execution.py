@@ -190,7 +190,14 @@ def rate_points(jobs, *, executor: cf.Executor | None = None, increments=None,
                 if cancel is not None and cancel():
                     stopped = True
                     break
-                future = pool.submit(rate_one, jobs[i].case, increments)
+                try:
+                    future = pool.submit(rate_one, jobs[i].case, increments)
+                except Exception as exc:  # noqa: BLE001 - a broken pool or a lost cluster
+                    points[i] = Point(jobs[i].inputs, "failed",
+                                      f"not sent to a worker: {type(exc).__name__}: "
+                                      f"{_first_line(exc)}", None, i)
+                    done += 1
+                    continue
                 pending[future] = i
                 if future.done():          # an executor that runs at submission
                     collect([future])

@@ -1,0 +1,141 @@
+"""The studies tab of the desktop: set up, run, stop, plot and export, on real widgets.
+
+The panel runs its points here on the in-process executor (the process pool is the
+engine's, tested in test_studies.py) from its worker thread, as in the window.
+"""
+from __future__ import annotations
+
+import csv
+from pathlib import Path
+
+import pytest
+
+import rating
+from gui_helpers import scratch  # noqa: F401 - a fixture
+from rating.studies import CANCELLED, InlineExecutor
+
+SAMPLES = Path(__file__).parent.parent / "samples"
+TIMEOUT_MS = 240000          # the test machine may be shared
+
+
+@pytest.fixture(scope="module")
+def pentane():
+    return rating.load_project(SAMPLES / "pentane-vaporiser.ebullio").cases[0]
+
+
+def make_panel(qtbot, case, system="metric"):
+    from gui.studies_panel import StudiesPanel
+
+    holder = {"case": case}
+    panel = StudiesPanel(lambda: holder["case"], lambda: system, make_executor=InlineExecutor)
+    qtbot.addWidget(panel)
+    panel.resize(1000, 700)
+    panel.show()
+    panel.refresh()
+    panel.holder = holder
+    return panel
+
+
+def run(qtbot, panel):
+    panel.run()
+    qtbot.waitUntil(lambda: not panel.busy(), timeout=TIMEOUT_MS)
+
+
+def test_sweep_is_plotted_in_display_units_and_tabled(qtbot, pentane):
+    panel = make_panel(qtbot, pentane)
+    assert panel.vary.path.currentData() == "tubes.length"
+    panel.vary.start.setText("2")
+    panel.vary.stop.setText("3")
+    panel.vary.count.setText("3")
+    run(qtbot, panel)
+    study = panel.study
+    assert [p.inputs["tubes.length"] for p in study.points] == [2.0, 2.5, 3.0]
+    (line,) = panel.ax.get_lines()
+    # kW on the axis: 1 kW = 1000 W (SI prefix)
+    assert list(line.get_ydata()) == pytest.approx([d / 1000.0 for d in study.values("duty_W")])
+    assert list(line.get_xdata()) == pytest.approx([2.0, 2.5, 3.0])
+    assert "[kW]" in panel.ax.get_ylabel() and "[m]" in panel.ax.get_xlabel()
+    assert panel.table.rowCount() == 3
+    assert "3 of 3 points rated" in panel.note.text()
+
+
+def test_stop_cancels_the_queued_points(qtbot, pentane):
+    panel = make_panel(qtbot, pentane)
+    panel.vary.count.setText("40")
+    panel.run()
+    panel.stop()
+    qtbot.waitUntil(lambda: not panel.busy(), timeout=TIMEOUT_MS)
+    statuses = [p.status for p in panel.study.points]
+    assert len(statuses) == 40 and CANCELLED in statuses
+    first_cancelled = statuses.index(CANCELLED)
+    assert all(s == CANCELLED for s in statuses[first_cancelled:])
+    assert panel.table.rowCount() == 40
+
+
+def test_export_writes_si_with_the_caution(qtbot, pentane, tmp_path):
+    panel = make_panel(qtbot, pentane)
+    panel.vary.count.setText("2")
+    run(qtbot, panel)
+    target = tmp_path / "sweep.csv"
+    assert panel.export_csv(target)
+    rows = list(csv.reader(target.open(encoding="utf-8")))
+    assert "qualified engineer" in rows[0][0]
+    assert rows[1][0] == "tubes.length" and "duty_W" in rows[1]
+    duty = float(rows[2][rows[1].index("duty_W")])
+    assert duty == pytest.approx(panel.study.points[0].value("duty_W"))  # W, not kW
+
+
+def test_spread_marks_the_case_method(qtbot, pentane):
+    panel = make_panel(qtbot, pentane)
+    panel.kind_box.setCurrentIndex(1)
+    run(qtbot, panel)
+    labels = [t.get_text() for t in panel.ax.get_yticklabels()]
+    assert len(labels) == len(panel.study.methods)
+    assert sum("(the case's)" in t for t in labels) == 1
+    dots = [ln for ln in panel.ax.get_lines() if ln.get_marker() == "o"]
+    assert len(dots) == len(panel.study.methods)
+    assert "spread" in panel.ax.get_title(loc="left")
+
+
+def test_envelope_marks_the_operating_point(qtbot, pentane):
+    panel = make_panel(qtbot, pentane, system="SI")
+    panel.kind_box.setCurrentIndex(2)
+    panel.env_x.count.setText("2")
+    panel.env_y.count.setText("2")
+    run(qtbot, panel)
+    star = [ln for ln in panel.ax.get_lines() if ln.get_marker() == "*"]
+    assert len(star) == 1
+    # the sample's own feed, 4.5 kg/s, and steam at 2 bar(a), shown as 200 kPa(a)
+    # in the SI system (1 bar = 100 kPa)
+    assert star[0].get_xdata()[0] == pytest.approx(4.5)
+    assert star[0].get_ydata()[0] == pytest.approx(200.0)
+    assert "kPa(a)" in panel.ax.get_ylabel()
+    assert panel.table.rowCount() == 4
+
+
+def test_bad_range_is_refused_beside_the_study(qtbot, pentane):
+    panel = make_panel(qtbot, pentane)
+    panel.vary.start.setText("two")
+    panel.run()
+    assert not panel.busy() and panel.study is None
+    assert "must be numbers" in panel.note.text()
+
+
+def test_the_window_has_a_studies_tab_on_its_current_case(qtbot, scratch):
+    from gui_helpers import make_window, open_rated
+
+    w = make_window(qtbot)
+    try:
+        open_rated(qtbot, w)
+        panel = w.studies
+        w.tabs.setCurrentWidget(panel)
+        assert w.tabs.tabText(w.tabs.currentIndex()) == "Studies"
+        assert panel.vary.path.findData("tubes.length") >= 0
+        assert panel.vary.unit.text() == "m"
+        panel._make_executor = InlineExecutor
+        panel.vary.count.setText("2")
+        run(qtbot, panel)
+        case = w.doc.entry(w.current_id).draft["name"]
+        assert panel.study.case_name == case and len(panel.study.points) == 2
+    finally:
+        w.runner.shutdown()
