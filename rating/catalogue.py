@@ -605,6 +605,8 @@ def applies(field: InputField | str, draft: dict) -> bool:
         return heating == "liquid"
     if p == "heating.saturation_temperature":
         return heating == "steam"
+    if p == "heating.htc_fixed":  # a kettle's is kettle.heating_htc
+        return kind != "kettle"
     if p == "heating.mass_flow":
         return heating == "liquid" or kind == "kettle"
     if p == "heating.flow_arrangement":

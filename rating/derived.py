@@ -18,7 +18,7 @@ from __future__ import annotations
 
 import dataclasses
 
-from .adjust import of_side
+from .adjust import Adjustment, of_side
 from .case import derived_fields
 from .errors import PropertyError
 from .results import MethodUsed, RatingWarning
@@ -27,6 +27,15 @@ from .results import MethodUsed, RatingWarning
 #: note: beyond a few kelvin the rise of the bubble point along the path and the
 #: mass-transfer penalty on boiling matter (common practice).
 NARROW_BOILING_RANGE = 2.0
+
+
+def _adjustments(case):
+    """(side, Adjustment) of each side whose coefficient the user set."""
+    heating = of_side(case.heating)
+    if case.kettle is not None and case.kettle.heating_htc is not None:
+        heating = Adjustment(fixed=case.kettle.heating_htc)
+    return [(side, a) for side, a in (("boiling", of_side(case.boiling)), ("heating", heating))
+            if a.active]
 
 
 def _saturation_temperature(spec, P):
@@ -66,14 +75,11 @@ def inputs_shown(case) -> tuple[dict, list[RatingWarning]]:
                 "dimension-defaulted", "warning",
                 f"kettle.{name} was not given: {getattr(case.kettle, name):.4g} m taken from "
                 f"{how}; give the datasheet value to rate the real shell"))
-    for side, part in (("boiling", b), ("heating", hm)):
-        adjust = of_side(part)
-        if adjust.active:
-            warnings.append(RatingWarning(
-                "coefficient-set-by-user", "warning",
-                adjust.describe(f"the {side}-side", "the chosen method") + f" ({side}.htc_"
-                + ("fixed" if adjust.fixed is not None else "factor") + "): the result rests "
-                "on that value"))
+    for side, adjust in _adjustments(case):
+        warnings.append(RatingWarning(
+            "coefficient-set-by-user", "warning",
+            adjust.describe(f"the {side}-side", "the chosen method") + ": the result rests on "
+            "that value"))
     try:
         fluid = make_fluid(b.fluid)
     except PropertyError:
@@ -146,8 +152,7 @@ def with_inputs_shown(case, result):
     trail = tuple(MethodUsed(f"{side}_coefficient", "user_fixed" if a.fixed is not None
                              else "user_multiplier", "user input (" + a.describe(
                                  side, "the chosen method") + ")", a.describe(side, "method"))
-                  for side, a in (("boiling", of_side(case.boiling)),
-                                  ("heating", of_side(case.heating))) if a.active)
+                  for side, a in _adjustments(case))
     result = dataclasses.replace(result, methods=trail + result.methods)
     status = result.status
     if status == "ok" and any(w.severity != "info" for w in warnings):

@@ -422,6 +422,11 @@ def test_a_kettle_takes_a_fixed_boiling_coefficient_and_a_heating_multiplier():
     scaled = rating.rate(with_fields(base, heating__htc_factor=0.5))
     assert scaled.summary["duty_W"] < rating.rate(base).summary["duty_W"]
     assert "coefficient-set-by-user" in codes(scaled)
+    # a kettle's fixed tube-side coefficient is its own field, flagged the same way
+    assert not cat.applies("heating.htc_fixed", cat.case_to_draft(base))
+    fixed = rating.rate(with_fields(base, kettle__heating_htc=6000.0))
+    assert "coefficient-set-by-user" in codes(fixed)
+    assert {m.family: m.name for m in fixed.methods}["heating_coefficient"] == "user_fixed"
 
 
 def test_coefficient_overrides_are_stored_and_refused_when_both_are_given():
