@@ -116,10 +116,14 @@ def rate_with_heat_loss(case, rate_case, **options):
     if hm.kind == "steam" or not hm.heat_loss:
         return _heat_loss_shown(case, rate_case(case, **options))
     share = 0.0
-    for _ in range(LOSS_RATINGS):
+    progress = options.pop("progress", None)
+    for k in range(LOSS_RATINGS):
         trial = dataclasses.replace(case, heating=dataclasses.replace(
             hm, heat_loss=0.0, heat_loss_percent=100.0 * share))
-        result = rate_case(trial, **options)
+        # the k-th rating reports within [1 - 2^-k, 1 - 2^-(k+1)]: never backwards
+        part = None if progress is None else (
+            lambda f, lo=1.0 - 0.5 ** k: progress(lo + 0.5 ** (k + 1) * min(max(f, 0.0), 1.0)))
+        result = rate_case(trial, progress=part, **options)
         duty = result.summary.get("duty_W")
         if result.status == "failed" or duty is None:
             break
@@ -127,6 +131,8 @@ def rate_with_heat_loss(case, rate_case, **options):
         if abs(settled - share) < LOSS_SHARE_TOLERANCE:
             break
         share = settled
+    if progress is not None:
+        progress(1.0)
     return _heat_loss_shown(case, dataclasses.replace(result, name=case.name))
 
 

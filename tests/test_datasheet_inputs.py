@@ -502,3 +502,10 @@ def test_a_thermosiphon_answers_the_required_duty_question():
     short = rating.rate(cat.with_value(case, "required_duty", 3.0e6))
     assert short.summary["over_design_pct"] < 0
     assert "duty-not-reached" in codes(short)
+
+
+def test_a_fixed_loss_on_a_liquid_reports_progress_that_never_goes_back(oil):
+    base, _plain, lossy = oil
+    seen = []
+    rating.rate(with_heating(base, heat_loss=lossy.summary["heat_loss_W"]), progress=seen.append)
+    assert seen and all(b >= a for a, b in zip(seen, seen[1:])) and seen[-1] == 1.0
