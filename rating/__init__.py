@@ -35,20 +35,29 @@ def save_project(project, path):
 def rate(case, *, increments=None, progress=None, cancel=None) -> Result:
     """Rate one case and return a result that carries its status.
 
-    ``progress(fraction)`` is called as the march advances; ``cancel()`` is
-    polled between increments and, when it returns True, the rating stops with a
-    "failed" result that says it was cancelled. Input errors raise ``InputError``
-    before any rating starts (they are found when the case is built), and so does an
-    ``increments`` outside ``rating.validation.INCREMENTS``.
+    ``progress(fraction)`` is called as the rating advances, with fractions that never
+    go backwards and end at 1.0 when the rating ends; ``cancel()`` is polled between
+    increments and, when it returns True, the rating stops with the status
+    "cancelled". Every result carries its provenance (``Result.provenance``: Ebullio
+    and CoolProp versions, the methods, the case's SHA-256, the UTC time rated).
+    Input errors raise ``InputError`` before any rating starts (they are found when
+    the case is built), and so does an ``increments`` outside
+    ``rating.validation.INCREMENTS``; nothing else raises.
     """
+    import dataclasses
+
     if increments is not None:
         from .validation import check_increments
         check_increments(increments)
-    from .exchangers import rate_case
+    from .exchangers import MonotonicProgress, provenance, rate_case
     from .derived import rate_with_heat_loss, with_inputs_shown
-    result = rate_with_heat_loss(case, rate_case, increments=increments, progress=progress,
+    report = MonotonicProgress(progress)
+    result = rate_with_heat_loss(case, rate_case, increments=increments, progress=report,
                                  cancel=cancel)
-    return _with_plausibility(case, with_inputs_shown(case, result))
+    result = _with_plausibility(case, with_inputs_shown(case, result))
+    if result.status != "cancelled":
+        report(1.0)
+    return dataclasses.replace(result, provenance=provenance(case, result))
 
 
 def _with_plausibility(case, result: Result) -> Result:

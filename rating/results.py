@@ -1,6 +1,6 @@
 """Results of a rating: summary, profiles along the length, warnings, methods used.
 
-A result carries its status ("ok", "warnings" or "failed") and a message instead
+A result carries its status ("ok", "warnings", "failed" or "cancelled") and a message instead
 of raising, so that a GUI, a report or a batch run can always show something.
 Keys are SI with the unit in the name; ``to_dict`` gives the JSON the CLI prints.
 """
@@ -77,6 +77,8 @@ class Result:
     warnings: tuple[RatingWarning, ...] = ()
     methods: tuple[MethodUsed, ...] = ()
     extra: dict = field(default_factory=dict)
+    #: Ebullio and CoolProp versions, method names, the case's SHA-256, the UTC time rated.
+    provenance: dict = field(default_factory=dict)
 
     @property
     def has_errors(self) -> bool:
@@ -93,6 +95,7 @@ class Result:
         }
         for k, v in self.extra.items():
             out[k] = _clean_tree(v)
+        out["provenance"] = _clean_tree(self.provenance)
         return out
 
 
@@ -122,9 +125,18 @@ def profiles_from_stations(stations) -> dict:
     return {key: tuple(getattr(s, attr) for s in stations) for key, attr in PROFILE_FIELDS.items()}
 
 
-def failed(case, message: str, *, warnings=(), methods=(), profiles=None) -> Result:
-    """A result for a case that could not be rated, with the reason."""
+def failed(case, message: str, *, warnings=(), methods=(), profiles=None,
+           code: str = "no-convergence", status: str = "failed") -> Result:
+    """A result for a case that could not be rated ("failed"), or whose rating was
+    stopped by the caller ("cancelled"), with the reason."""
     summary = {k: None for k in SUMMARY_KEYS}
-    return Result(case.name, case.type, "failed", message, summary, profiles or {},
-                  tuple(warnings) + (RatingWarning("no-convergence", "error", message),),
+    severity = "info" if status == "cancelled" else "error"
+    return Result(case.name, case.type, status, message, summary, profiles or {},
+                  tuple(warnings) + (RatingWarning(code, severity, message),),
                   tuple(methods))
+
+
+def cancelled(case, *, methods=()) -> Result:
+    """The result of a rating stopped by its caller's cancel flag."""
+    return failed(case, "cancelled before the rating finished", methods=methods,
+                  code="cancelled", status="cancelled")

@@ -471,7 +471,7 @@ def test_progress_and_cancel():
     assert all(0.0 <= f <= 1.0 for f in seen)
     calls = []
     r = rating.rate(steam_kettle(), cancel=lambda: calls.append(1) or len(calls) > 5)
-    assert r.status == "failed" and "cancel" in r.message
+    assert r.status == "cancelled" and "cancel" in r.message
 
 
 def test_cli_prints_the_kettle_keys(capsys):

@@ -443,7 +443,7 @@ def test_progress_and_cancel(stripper):
     assert all(b >= a for a, b in itertools.pairwise(seen))
     calls = []
     r = rating.rate(stripper, cancel=lambda: calls.append(1) or len(calls) > 30)
-    assert r.status == "failed" and "cancel" in r.message
+    assert r.status == "cancelled" and "cancel" in r.message
 
 
 def loop_args(**over):

@@ -121,3 +121,33 @@ def test_quality_reaching_one_is_reported_as_dryout(monkeypatch):
     assert z_dry == pytest.approx(first_dry, abs=1e-6)
     dry = [w for w in r.warnings if w.code == "dryout"]
     assert dry and dry[0].z_m == pytest.approx(z_dry) and "quality 1" in dry[0].message
+
+
+# --- a rating that cannot reach its state fails; an impossible input is refused
+
+def test_a_kettle_fed_less_than_it_boils_off_fails():
+    # Before: status "warnings", a duty that broke the energy balance and an exit
+    # quality of 27 (the sample kettle fed 0.5 kg/s instead of 16 kg/s).
+    k = rating.load_project(SAMPLES / "harrow-creek-kettles.ebullio").cases[0]
+    r = rating.rate(dataclasses.replace(k, increments=20,
+                                        boiling=dataclasses.replace(k.boiling, mass_flow=0.5)))
+    assert r.status == "failed"
+    assert "feed 0.5 kg/s" in r.message and "boil off" in r.message
+    assert r.summary["duty_W"] is None and r.summary["exit_quality"] is None
+    # the same kettle with its own feed still rates
+    assert rating.rate(dataclasses.replace(k, increments=20)).status in ("ok", "warnings")
+
+
+def test_a_shell_too_small_for_its_tubes_is_refused_by_field():
+    # Before: 64 tubes of 19 mm in a 0.1 m shell rated "warnings" with a Bell-Delaware
+    # coefficient. Phadke (1984) as ht.hx.Ntubes_Phadkeb: a 0.3 m shell (outer tube
+    # limit 0.2865 m) holds the sample's 64 tubes on 23.8 mm pitch in 4 passes.
+    from rating.errors import InputError
+    c = rating.load_project(SAMPLES / "chiller-evaporator.ebullio").cases[0]
+    with pytest.raises(InputError) as err:
+        dataclasses.replace(c, shell=dataclasses.replace(c.shell, inner_diameter=0.1))
+    assert err.value.field == "shell.inner_diameter" and "tubes.count = 64" in str(err.value)
+    k = rating.load_project(SAMPLES / "harrow-creek-kettles.ebullio").cases[0]
+    with pytest.raises(InputError) as err:
+        dataclasses.replace(k, kettle=dataclasses.replace(k.kettle, bundle_diameter=0.2))
+    assert err.value.field == "kettle.bundle_diameter"

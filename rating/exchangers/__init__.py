@@ -14,7 +14,44 @@ from ..results import failed
 TYPES = ("evaporator", "thermosiphon", "kettle")
 
 
+class MonotonicProgress:
+    """The caller's progress callback, fed only values that never go backwards (a
+    rating may march several times: shooting, circulation trials, heat-loss passes)."""
+
+    def __init__(self, callback):
+        self.callback, self.last = callback, 0.0
+
+    def __call__(self, fraction):
+        fraction = min(max(float(fraction), self.last), 1.0)
+        if self.callback is not None and (fraction > self.last or fraction == 1.0 != self.last):
+            self.callback(fraction)
+        self.last = fraction
+
+
+def provenance(case, result) -> dict:
+    """Where a result comes from: program and property-library versions, the methods,
+    a hash of the case's data (the project file's case object) and when it was rated."""
+    import datetime
+    import hashlib
+    import json
+
+    import CoolProp
+
+    from .. import __version__
+    from ..project import to_dict
+
+    data = json.dumps(to_dict(case), sort_keys=True, separators=(",", ":"), default=str)
+    return {
+        "ebullio_version": __version__,
+        "coolprop_version": CoolProp.__version__,
+        "methods": [m.name for m in result.methods],
+        "case_sha256": hashlib.sha256(data.encode("utf-8")).hexdigest(),
+        "rated_at": datetime.datetime.now(datetime.timezone.utc).isoformat(timespec="seconds"),
+    }
+
+
 def rate_case(case, *, increments=None, progress=None, cancel=None):
+    """Rate a case of the type it names: a result always, never an exception."""
     if case.type not in TYPES:
         return failed(case, f"exchanger type {case.type!r} is not rated by this version")
     try:

@@ -25,7 +25,7 @@ from ..march import (WETTED_REGIMES, BoilingTube, Cancelled, Marcher, MarchOutco
                      solve_counter_current)
 from ..errors import PropertyError
 from ..properties import make_fluid
-from ..results import MethodUsed, Result, RatingWarning, failed, profiles_from_stations
+from ..results import MethodUsed, Result, RatingWarning, cancelled, failed, profiles_from_stations
 from .heating import LiquidHeating, SteamHeating, shell_geometry, tube_rows
 
 #: Default increment count along the heated path (midpoint rule): chosen so that
@@ -241,7 +241,7 @@ def rate_evaporator(case, *, increments=None, progress=None, cancel=None) -> Res
             if check.status != "ok":
                 notes.append(check.message)
     except Cancelled:
-        return failed(case, "cancelled before the rating finished", methods=methods)
+        return cancelled(case, methods=methods)
 
     primary = check if (case.question == "duty_check" and check is not None
                         and check.status == "ok") else outcome

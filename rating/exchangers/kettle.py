@@ -95,7 +95,7 @@ from ..correlations.pool_boiling import (bundle_geometry_factor,
 from ..errors import PropertyError
 from ..march import Cancelled
 from ..properties import make_fluid
-from ..results import MethodUsed, RatingWarning, Result, failed, profiles_from_stations
+from ..results import MethodUsed, RatingWarning, Result, cancelled, failed, profiles_from_stations
 from .evaporator import DUTY_CHECK_LENGTH_FACTOR, ProgressShare, inlet_enthalpy, integrate_along_z
 from .kettle_march import InTubeHeating, KettleMarch, PoolBand
 
@@ -488,7 +488,7 @@ def rate_kettle(case, *, increments=None, progress=None, cancel=None) -> Result:
             if check[1].status != "ok":
                 notes.append(check[1].message)
     except Cancelled:
-        return failed(case, "cancelled before the rating finished", methods=methods)
+        return cancelled(case, methods=methods)
     if progress is not None:
         progress(1.0)
 
@@ -497,6 +497,8 @@ def rate_kettle(case, *, increments=None, progress=None, cancel=None) -> Result:
         primary = check
     summary = kettle_summary(case, primary, (kt, outcome), check)
     warnings = _warnings(case, primary, summary)
+    if summary["exit_quality"] >= 1.0:
+        return _feed_boiled_dry(case, summary, warnings, methods, primary)
     if check is not None and check[1].status != "ok":
         warnings.append(RatingWarning("duty-not-reached", "error", check[1].message, None))
     status = "warnings" if any(w.severity in ("warning", "error") for w in warnings) else "ok"
@@ -504,6 +506,23 @@ def rate_kettle(case, *, increments=None, progress=None, cancel=None) -> Result:
     return Result(case.name, case.type, status, message, summary,
                   _profiles(primary[0], primary[1], primary[2]), tuple(warnings), methods,
                   extra={"increments": n})
+
+
+def _feed_boiled_dry(case, summary, warnings, methods, primary) -> Result:
+    """A failed result: the heating would boil off more than the feed brings in.
+
+    The pool cannot be held at the weir: the level falls and tubes uncover until the
+    duty matches the feed, a state this rating does not model, so no duty is given.
+    """
+    feed = case.boiling.mass_flow
+    boil_off = feed * summary["exit_quality"]     # vapour the full-level duty would make
+    message = (f"the feed {feed:.4g} kg/s is less than the bundle would boil off "
+               f"({boil_off:.4g} kg/s at the full-level duty): nothing overflows the weir, the level falls and tubes uncover, so the "
+               "duty and outlet states are not those of this geometry; raise the feed, or "
+               "lower the heating-medium temperature or flow")
+    kept = tuple(w for w in warnings if w.code != "kettle-dry")
+    return failed(case, message, warnings=kept, methods=methods, code="feed-boiled-dry",
+                  profiles=_profiles(primary[0], primary[1], primary[2]))
 
 
 def _duty_check(case, kt, n, cancel, prog):

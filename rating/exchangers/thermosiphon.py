@@ -73,7 +73,7 @@ from ..correlations.dimensionless import g
 from ..errors import PropertyError
 from ..march import Cancelled, Marcher, MarchOutcome, solve_counter_current
 from ..properties import make_fluid
-from ..results import SUMMARY_KEYS, RatingWarning, Result, failed, profiles_from_stations
+from ..results import SUMMARY_KEYS, RatingWarning, Result, cancelled, failed, profiles_from_stations
 from . import piping
 from .evaporator import (DEFAULT_INCREMENTS, march_summary, boiling_tube, condensate_film,
                          heating_side, methods_used, with_substitutes)
@@ -525,7 +525,7 @@ def rate_thermosiphon(case, *, increments=None, progress=None, cancel=None) -> R
             crossings.remove(chosen)  # the change of sign is not there at the full increments
             chosen = select(crossings)
     except Cancelled:
-        return failed(case, "cancelled before the rating finished", methods=methods)
+        return cancelled(case, methods=methods)
     except (ValueError, ZeroDivisionError, OverflowError, RuntimeError) as exc:
         return failed(case, f"no solution of the circulation loop: {exc}", methods=methods)
     if chosen is None or _dry(chosen.point):
