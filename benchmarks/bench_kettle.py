@@ -5,7 +5,7 @@ with the default increments and prints the median and the fastest wall time, the
 number of tube-side marches a rating took and the share of the time spent in property
 calls (rating.properties, CoolProp; cProfile on one extra rating). Every timed rating
 starts with cold property caches. Target (issue 5, on a 2-core machine): a kettle
-performance rating under 100 ms median. A duty check scales the tube length with a
+performance rating under 100 ms median. The area-for-duty question scales the tube length with a
 root search (a dozen marches) and is shown for information.
 
     python benchmarks/bench_kettle.py [--repeat N] [FILE ...]

@@ -40,7 +40,9 @@ EXCHANGER_TYPES = ("evaporator", "thermosiphon", "kettle")
 ORIENTATIONS = ("vertical", "horizontal")
 HEATING_KINDS = ("steam", "liquid")
 FLOW_ARRANGEMENTS = ("counter", "co")
-QUESTIONS = ("performance", "duty_check")
+#: The questions a case asks: "performance" (duty and outlet states of this geometry) or
+#: "area_for_duty" (the area a required duty takes, against the area there is: over-design).
+QUESTIONS = ("performance", "area_for_duty")
 
 
 def derived_fields(part) -> dict:

@@ -845,13 +845,25 @@ SUMMARY: dict[str, ResultField] = _results([
     ("mean_temperature_difference_K", "Mean temperature difference", "temperature_difference",
      ALL, "Duty / (U service x area)"),
     ("over_design_pct", "Over-design", "percent", ALL,
-     "Installed area over the area needed for the required duty, minus 1"),
+     "Installed area over the area needed for the required duty, minus 1 (area basis, "
+     "every type)"),
     ("over_surface_pct", "Over-surface", "percent", ALL, ""),
-    ("exit_quality", "Exit vapour quality", "fraction", ALL, "Vapour mass fraction at the exit"),
+    ("exit_quality", "Exit vapour quality", "fraction", ALL,
+     "Vapour mass fraction at the exit; not computed where the exit is superheated vapour "
+     "or subcooled liquid (see the superheat and subcooling)"),
+    ("exit_superheat_K", "Exit superheat", "temperature_difference", ALL,
+     "Exit vapour temperature above saturation, where all the liquid has evaporated"),
+    ("exit_subcooling_K", "Exit subcooling", "temperature_difference", ALL,
+     "Saturation temperature above the exit liquid's, where the liquid has not reached it"),
     ("exit_temperature_K", "Exit temperature", "temperature", ALL, ""),
     ("exit_pressure_Pa", "Exit pressure", "pressure", ALL, ""),
-    ("pressure_drop_boiling_Pa", "Pressure drop, boiling side", "pressure_difference", ALL, ""),
-    ("pressure_drop_heating_Pa", "Pressure drop, heating side", "pressure_difference", ALL, ""),
+    ("pressure_drop_boiling_Pa", "Pressure drop, boiling side", "pressure_difference", ALL,
+     "Inlet minus exit pressure of the boiling flow; not computed for a kettle's pool"),
+    ("static_head_over_bundle_Pa", "Static head over the bundle bottom", "pressure_difference",
+     _KT, "Liquid head from the weir level to the bottom of the bundle (raises the boiling "
+     "point there)"),
+    ("pressure_drop_heating_Pa", "Pressure drop, heating side", "pressure_difference", ALL,
+     "Not computed for condensing steam on the shell side"),
     ("heating_outlet_temperature_K", "Heating medium outlet temperature", "temperature", ALL, ""),
     ("heating_outlet_quality", "Heating medium outlet quality", "fraction", _KT, ""),
     ("steam_flow_kg_s", "Steam condensed", "mass_flow", ALL, ""),
@@ -859,7 +871,8 @@ SUMMARY: dict[str, ResultField] = _results([
     ("mean_heat_flux_W_m2", "Mean heat flux", "heat_flux", ALL, ""),
     ("average_heat_flux_W_m2", "Mean bundle heat flux", "heat_flux", _KT, ""),
     ("max_chf_ratio", "Largest flux / critical flux", "dimensionless", ALL,
-     "Largest ratio of a flux to its limit of the same kind"),
+     "Largest ratio of a flux to its limit of the same kind: local flux over local critical "
+     "flux in tubes; the bundle's mean flux over the bundle maximum flux in a kettle"),
     ("dryout_z_m", "Dryout starts at", "length", ALL, "Position along the heated length"),
     # thermosiphon
     # the inputs as rated: the given value and the one derived from it

@@ -36,9 +36,9 @@ LIMIT_SOURCES = {
     "thermosiphon_max_exit_quality_aqueous": (0.10, "-", "Aqueous thermosiphons run at an exit "
                                               "vapour mass fraction of about 0.02-0.10 (common "
                                               "practice, often attributed to Fair 1960)"),
-    "thermosiphon_circulation_ratio_min": (5.0, "-", "Circulation ratio (kg liquid per kg "
-                                           "vapour) usually 5-20: Buckley, Luyben & Shunta "
-                                           "(1985)"),
+    "thermosiphon_circulation_ratio_min": (5.0, "-", "Circulation ratio (kg through the tubes "
+                                           "per kg of vapour made, 1 / exit quality) usually "
+                                           "5-20: Buckley, Luyben & Shunta (1985)"),
     "thermosiphon_circulation_ratio_max": (20.0, "-", "Circulation ratio usually 5-20: Buckley, "
                                            "Luyben & Shunta (1985)"),
     "thermosiphon_max_flux": (None, "W/m^2", "Mean heat flux of a natural-circulation "

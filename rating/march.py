@@ -648,7 +648,7 @@ class Marcher:
         """March from z = 0 with the given inlet state.
 
         Increments end exactly on the events along the path (the saturation point,
-        the onset of dryout and, with ``stop_duty``, a duty check, the point where
+        the onset of dryout and, with ``stop_duty`` (the area-for-duty question), the point where
         the cumulative duty reaches it) so that the outcome depends continuously on
         the inlet states, as the shooting and circulation roots need. With
         ``stop_duty`` the path may continue past ``length`` up to ``max_length``.

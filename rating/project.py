@@ -8,7 +8,7 @@ A project file is JSON text in UTF-8 with the extension ``.ebullio``::
       "format": "ebullio-project",
       "notes": "",
       "revision": 1,
-      "schema_version": 1,
+      "schema_version": 2,
       "title": ""
     }
 
@@ -48,7 +48,7 @@ from .validation import format_value
 
 FORMAT = "ebullio-project"
 EXTENSION = ".ebullio"
-SCHEMA_VERSION = 1
+SCHEMA_VERSION = 2
 
 #: Keys of the file's top level that are not fields of ``Project``.
 HEADER = ("format", "schema_version", "app_version")
@@ -92,6 +92,16 @@ def migrate(data: dict, *, source: str = "the project", chain: dict | None = Non
                                    f"{version + 1}: {type(exc).__name__}: {exc}") from exc
         version += 1
         data["schema_version"] = version
+    return data
+
+
+@migrates(1)
+def question_renamed(data: dict) -> dict:
+    """Schema 2 names the question "area for a required duty" ``area_for_duty``
+    (schema 1: ``duty_check``)."""
+    for case in data.get("cases", []):
+        if isinstance(case, dict) and case.get("question") == "duty_check":
+            case["question"] = "area_for_duty"
     return data
 
 

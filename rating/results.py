@@ -14,7 +14,8 @@ SEVERITIES = ("info", "warning", "error")
 #: Summary keys every exchanger type reports, in this order.
 SUMMARY_KEYS = (
     "duty_W", "duty_heating_side_W", "area_m2", "u_clean_W_m2K", "u_service_W_m2K",
-    "mean_temperature_difference_K", "over_design_pct", "exit_quality", "exit_temperature_K",
+    "mean_temperature_difference_K", "over_design_pct", "exit_quality", "exit_superheat_K",
+    "exit_subcooling_K", "exit_temperature_K",
     "pressure_drop_boiling_Pa", "pressure_drop_heating_Pa", "heating_outlet_temperature_K",
     "max_heat_flux_W_m2", "max_chf_ratio", "dryout_z_m",
 )

@@ -609,8 +609,8 @@ def check_case(case) -> None:
         _fail("vendor", case.vendor, "", "must be a VendorFigures or None")
     _choice("type", case.type, EXCHANGER_TYPES)
     question = _choice("question", case.question, QUESTIONS)
-    if question == "duty_check" and case.required_duty is None:
-        _fail("required_duty", None, "", "a duty check needs required_duty > 0 W")
+    if question == "area_for_duty" and case.required_duty is None:
+        _fail("required_duty", None, "", "the question 'area_for_duty' needs required_duty > 0 W")
     _optional(_positive, "required_duty", case.required_duty, "W")
     if case.increments is not None:
         check_increments(case.increments)

@@ -12,7 +12,7 @@ row that decides it:
 * **conservative**: it makes the exchanger look worse by more than the tolerance;
 * **consistent**: within the tolerance either way;
 * **not comparable**: the case does not compute that figure (over-design outside a
-  duty check, circulation outside a thermosiphon, the steam-side pressure drop of
+  area-for-duty question, circulation outside a thermosiphon, the steam-side pressure drop of
   shell-side steam, a rating that failed).
 
 The overall verdict is optimistic if any row is (a buyer's first concern), else
@@ -220,7 +220,7 @@ def _ebullio_value(row: _Row, case, result) -> tuple[float | None, str]:
     value = result.summary.get(row.key)
     if value is None:
         if row.figure == "over_design":
-            return None, "over-design needs a required duty (a duty check)"
+            return None, "over-design needs a required duty (the area-for-duty question)"
         if row.figure == "pressure_drop_heating" and case.heating.kind == "steam":
             return None, "the pressure drop of condensing steam on the shell side is not computed"
         return None, "not computed for this case"

@@ -34,7 +34,7 @@ def test_json_output_has_every_case(capsys):
     code, out, _ = run([PENTANE, "--json"], capsys)
     data = json.loads(out)
     names = [c["name"] for c in data["cases"]]
-    assert names == ["C5 vaporiser V-12 performance", "C5 vaporiser V-12 duty check"]
+    assert names == ["C5 vaporiser V-12 performance", "C5 vaporiser V-12 area for duty"]
     for c in data["cases"]:
         assert {"name", "type", "status", "message", "summary", "warnings", "methods",
                 "profiles"} <= set(c)
@@ -43,10 +43,10 @@ def test_json_output_has_every_case(capsys):
 
 
 def test_case_selection_and_csv(tmp_path, capsys):
-    code, out, _ = run([PENTANE, "--case", "C5 vaporiser V-12 duty check", "--json",
+    code, out, _ = run([PENTANE, "--case", "C5 vaporiser V-12 area for duty", "--json",
                         "--csv", tmp_path, "--increments", "20"], capsys)
     data = json.loads(out)
-    assert [c["name"] for c in data["cases"]] == ["C5 vaporiser V-12 duty check"]
+    assert [c["name"] for c in data["cases"]] == ["C5 vaporiser V-12 area for duty"]
     files = list(tmp_path.glob("*.csv"))
     assert len(files) == 1
     lines = files[0].read_text().splitlines()

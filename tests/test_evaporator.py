@@ -4,7 +4,7 @@ The samples are scenarios of our own (invented numbers). What is checked against
 something outside the project: the energy balance closes between two sides that
 are computed independently; the saturation temperature along the tube is the one
 CoolProp's high-level interface (an independent call path) gives at the local
-pressure; grid convergence; a duty check at the rated duty gives zero over-design.
+pressure; grid convergence; the area for the rated duty gives zero over-design.
 """
 import dataclasses
 import json
@@ -147,18 +147,18 @@ def test_past_the_critical_heat_flux_hotter_steam_gives_less_duty():
     assert hot.summary["duty_W"] < mild.summary["duty_W"]
 
 
-def test_duty_check_at_the_rated_duty_has_no_over_design():
+def test_area_for_duty_at_the_rated_duty_has_no_over_design():
     perf = rating.rate(steam_case())
-    check = rating.rate(steam_case(question="duty_check", required_duty=perf.summary["duty_W"]))
+    check = rating.rate(steam_case(question="area_for_duty", required_duty=perf.summary["duty_W"]))
     assert check.summary["over_design_pct"] == pytest.approx(0.0, abs=1.0)
-    half = rating.rate(steam_case(question="duty_check",
+    half = rating.rate(steam_case(question="area_for_duty",
                                   required_duty=0.5 * perf.summary["duty_W"]))
     assert half.summary["over_design_pct"] > 50.0
     assert half.summary["duty_W"] == pytest.approx(0.5 * perf.summary["duty_W"], rel=1e-6)
 
 
 def test_duty_beyond_reach_is_an_error_not_an_exception():
-    r = rating.rate(steam_case(question="duty_check", required_duty=5e7))
+    r = rating.rate(steam_case(question="area_for_duty", required_duty=5e7))
     assert any(w.code == "duty-not-reached" and w.severity == "error" for w in r.warnings)
     assert r.summary["over_design_pct"] is None
 

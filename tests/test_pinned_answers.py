@@ -4,7 +4,7 @@ These are NOT checks against an outside source. The pinned figures are the
 answers Ebullio's own code gave on the samples on the day the speed work began
 (issue 10), before any of it: the duty, the boiling side's exit quality and
 temperature, the heating medium's outlet temperature, the dryout position, the
-thermosiphon circulation and a duty check's required area. Making the rating
+thermosiphon circulation and the area-for-duty question's required area. Making the rating
 faster (tables of properties, fewer march steps, other root finders) must keep
 every one of them within the tolerances the issue set: duty within 0.1 %, exit
 states within 0.1 K or 0.001 in quality. The circulation and the required area

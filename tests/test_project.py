@@ -46,7 +46,7 @@ def make_project():
         boiling=BoilingStream("R134a", 1.5, 414607.5, inlet_quality=0.2),
         heating=HeatingMedium(kind="liquid", fluid="Water", pressure=3e5, inlet_temperature=285.15 + 10,
                               mass_flow=8.0, flow_arrangement="co"),
-        kettle=KettleShell(0.5, 0.3, 0.25, 0.3, boiling_range=2.0), question="duty_check",
+        kettle=KettleShell(0.5, 0.3, 0.25, 0.3, boiling_range=2.0), question="area_for_duty",
         required_duty=2.5e5)
     return Project(cases=(water, r134a), title="Tést ünïcode", notes="line one\nline two", revision=2)
 
@@ -90,7 +90,7 @@ def test_v1_sample_loads_with_its_values():
     assert water.methods.flow_boiling == "gungor_winterton_1986" and water.methods.tube_dryout == "auto"
     assert water.limits.chf_ratio == 0.7 and water.limits.critical_quality is None
 
-    assert pentane.type == "thermosiphon" and pentane.question == "duty_check"
+    assert pentane.type == "thermosiphon" and pentane.question == "area_for_duty"  # schema 1 "duty_check"
     assert pentane.required_duty == 1.5e6 and pentane.increments == 200
     assert pentane.boiling.fluid == "n-Pentane" and pentane.boiling.inlet_quality == 0.0
     assert pentane.heating.kind == "liquid" and pentane.heating.inlet_temperature == 393.15
@@ -123,7 +123,7 @@ def test_file_layout(tmp_path):
     assert text.endswith("}\n") and not text.endswith("\n\n")
     assert "Tést ünïcode" in text  # UTF-8, not \u escapes
     data = json.loads(text)
-    assert data["format"] == "ebullio-project" and data["schema_version"] == SCHEMA_VERSION == 1
+    assert data["format"] == "ebullio-project" and data["schema_version"] == SCHEMA_VERSION == 2
     assert isinstance(data["app_version"], str)
     assert list(data) == sorted(data) and list(data["cases"][0]["tubes"]) == sorted(data["cases"][0]["tubes"])
     assert '\n  "cases": [\n    {\n      "boiling": {' in text  # two-space indent
@@ -240,7 +240,7 @@ def test_foreign_file(tmp_path, data, fragment):
 def test_newer_schema(tmp_path):
     data = {**good_data(), "schema_version": 3, "a_future_key": {}}
     error = refuse_load(write(tmp_path, json.dumps(data)))
-    assert "written by a newer Ebullio (schema 3); this version reads up to 1" in str(error)
+    assert "written by a newer Ebullio (schema 3); this version reads up to 2" in str(error)
 
 
 @pytest.mark.parametrize("version", [None, 0, "1", 1.0, True])
@@ -308,50 +308,51 @@ def test_a_byte_order_mark_is_accepted(tmp_path):
 # --- migration ----------------------------------------------------------------------------------
 
 @pytest.fixture
-def schema_2(monkeypatch):
-    """Pretend the current schema is 2 with a test-local chain; the product chain is untouched."""
+def schema_3(monkeypatch):
+    """Pretend the current schema is 3 with a test-local chain (the product's 1 -> 2 step
+    kept); the product chain is untouched."""
     chain = dict(project_module.MIGRATIONS)
     monkeypatch.setattr(project_module, "MIGRATIONS", chain)
-    monkeypatch.setattr(project_module, "SCHEMA_VERSION", 2)
+    monkeypatch.setattr(project_module, "SCHEMA_VERSION", 3)
     return chain
 
 
-def test_migration_runs_on_a_copy(schema_2):
-    @migrates(1, chain=schema_2)
-    def title_was_called_name(data):  # an imagined schema-1 spelling
+def test_migration_runs_on_a_copy(schema_3):
+    @migrates(2, chain=schema_3)
+    def title_was_called_name(data):  # an imagined schema-2 spelling
         data["title"] = data.pop("name")
         return data
 
-    old = {**good_data(), "name": "from schema 1"}
+    old = {**good_data(), "name": "from schema 2"}
     del old["title"]
     kept = json.dumps(old, sort_keys=True)
-    assert from_dict(old).title == "from schema 1"
+    assert from_dict(old).title == "from schema 2"
     assert json.dumps(old, sort_keys=True) == kept  # the caller's data is not changed
     migrated = migrate(old)
-    assert migrated["schema_version"] == 2 and migrated["title"] == "from schema 1"
+    assert migrated["schema_version"] == 3 and migrated["title"] == "from schema 2"
 
 
-def test_failing_migration_is_reported(schema_2, tmp_path):
-    @migrates(1, chain=schema_2)
+def test_failing_migration_is_reported(schema_3, tmp_path):
+    @migrates(2, chain=schema_3)
     def needs_a_key(data):
         data["title"] = data.pop("name")
         return data
 
     error = refuse_load(write(tmp_path, V1_SAMPLE.read_text(encoding="utf-8")))  # has no "name"
-    assert "could not be converted from schema 1 to 2: KeyError: 'name'" in str(error)
+    assert "could not be converted from schema 2 to 3: KeyError: 'name'" in str(error)
 
 
-def test_a_gap_in_the_chain_is_reported(schema_2, monkeypatch):
-    monkeypatch.setattr(project_module, "SCHEMA_VERSION", 3)
-    migrates(1, chain=schema_2)(lambda data: data)
-    with pytest.raises(ProjectFileError, match="no migration from schema 2"):
+def test_a_gap_in_the_chain_is_reported(schema_3, monkeypatch):
+    monkeypatch.setattr(project_module, "SCHEMA_VERSION", 4)
+    migrates(2, chain=schema_3)(lambda data: data)
+    with pytest.raises(ProjectFileError, match="no migration from schema 3"):
         from_dict(good_data())
 
 
-def test_a_version_registers_once(schema_2):
-    migrates(1, chain=schema_2)(lambda data: data)
+def test_a_version_registers_once(schema_3):
+    migrates(2, chain=schema_3)(lambda data: data)
     with pytest.raises(ValueError, match="already registered"):
-        migrates(1, chain=schema_2)(lambda data: data)
+        migrates(2, chain=schema_3)(lambda data: data)
 
 
 # --- round trips of random valid parts -------------------------------------------------------
@@ -423,3 +424,22 @@ def test_dumps_matches_what_save_writes(tmp_path):
     path = tmp_path / "p.ebullio"
     save_project(make_project(), path)
     assert path.read_text(encoding="utf-8") == dumps(make_project())
+
+
+# --- schema 2: the question renamed ------------------------------------------------------------
+
+V2_SAMPLE = Path(__file__).parent / "data" / "projects" / "v2" / "two-cases.ebullio"
+
+
+def test_schema_1_question_duty_check_reads_as_area_for_duty():
+    data = json.loads(V1_SAMPLE.read_text(encoding="utf-8"))
+    assert data["schema_version"] == 1 and data["cases"][1]["question"] == "duty_check"
+    migrated = migrate(data)
+    assert migrated["schema_version"] == 2
+    assert [c["question"] for c in migrated["cases"]] == ["performance", "area_for_duty"]
+
+
+def test_the_v2_sample_is_the_v1_sample_brought_up_to_date():
+    data = json.loads(V2_SAMPLE.read_text(encoding="utf-8"))
+    assert data["schema_version"] == 2 and data["cases"][1]["question"] == "area_for_duty"
+    assert load_project(V2_SAMPLE) == load_project(V1_SAMPLE)

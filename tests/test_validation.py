@@ -247,9 +247,9 @@ def case_kwargs(**changes):
     (dict(name=""), "name", ["must not be empty"]),
     (dict(name=None), "name", ["must be text (the case name)"]),
     (dict(type="falling_film"), "type", ["'evaporator', 'thermosiphon', 'kettle'"]),
-    (dict(question="design"), "question", ["'performance', 'duty_check'"]),
-    (dict(question="duty_check"), "required_duty", ["required_duty > 0 W"]),
-    (dict(question="duty_check", required_duty=-5.0), "required_duty", ["-5 W", "> 0"]),
+    (dict(question="design"), "question", ["'performance', 'area_for_duty'"]),
+    (dict(question="area_for_duty"), "required_duty", ["required_duty > 0 W"]),
+    (dict(question="area_for_duty", required_duty=-5.0), "required_duty", ["-5 W", "> 0"]),
     (dict(increments=5), "increments", ["from 10 to 5000"]),
     (dict(increments=6000), "increments", ["from 10 to 5000"]),
     (dict(increments=10.5), "increments", ["whole number from 10 to 5000"]),
@@ -264,7 +264,7 @@ def test_case_refusals(changes, field, fragments):
 # --- Case: rules that need properties ---------------------------------------------------------
 
 def test_valid_cases_for_three_fluids():
-    Case(**case_kwargs(question="duty_check", required_duty=1e6, increments=10))
+    Case(**case_kwargs(question="area_for_duty", required_duty=1e6, increments=10))
     Case(**case_kwargs(boiling=BoilingStream("R134a", 1.0, 414607.5, inlet_quality=0.2)))
     Case(**case_kwargs(boiling=BoilingStream("n-Pentane", 1.0, 3e5, inlet_temperature=330.0),
                        heating=HeatingMedium(**LIQUID), shell=Shell(**SHELL), increments=5000))

@@ -47,7 +47,7 @@ def with_vendor(case, **figures):
     return dataclasses.replace(case, vendor=VendorFigures(source="Proposal P-1 rev. B", **figures))
 
 
-DUTY_CHECK = PENTANE.cases[1]      # a duty check on condensing steam
+DUTY_CHECK = PENTANE.cases[1]      # the area for a duty, on condensing steam
 PERFORMANCE = PENTANE.cases[0]     # a performance rating on condensing steam
 THERMOSIPHON = STRIPPER.cases[0]
 
@@ -100,7 +100,7 @@ def test_figures_the_case_does_not_compute_are_not_comparable():
         row = cmp.row(figure)
         assert row.verdict == "not comparable" and row.ebullio is None and row.deviation is None
         assert row.note       # says why
-    assert "duty check" in cmp.row("over_design").note
+    assert "area-for-duty" in cmp.row("over_design").note
     assert "thermosiphon" in cmp.row("circulation_rate").note
     assert cmp.verdict == "consistent" and cmp.deciding == "duty"
 

@@ -3,7 +3,7 @@ the heating medium on the shell side.
 
 Two questions:
 - performance: this geometry and these inlet states; what duty and outlet states?
-- duty check: this required duty; how much area does it take against the area
+- area for duty: this required duty; how much area does it take against the area
   there is (over-design in %)? Answered by marching on until the required duty is
   absorbed, past the real tube end if needed.
 
@@ -35,11 +35,11 @@ DEFAULT_INCREMENTS = 40
 #: Increments of the first march on vertical steam-heated tubes, which only supplies the
 #: condensate film along the tube (as the thermosiphon's scan does): the film law depends
 #: on the film flow to the power -1/3 or less: against a first march at the full count the
-#: duty moves by 1e-5 and a duty check's required area by 0.03 % on the samples (10
+#: duty moves by 1e-5 and the area-for-duty required area by 0.03 % on the samples (10
 #: increments would move that area by 0.2 %).
 FILM_PROFILE_INCREMENTS = 20
 
-#: How far past the real tube a duty check may march, in tube lengths.
+#: How far past the real tube the area-for-duty march may go, in tube lengths.
 DUTY_CHECK_LENGTH_FACTOR = 10.0
 
 
@@ -237,13 +237,13 @@ def rate_evaporator(case, *, increments=None, progress=None, cancel=None) -> Res
                           profiles=profiles_from_stations(outcome.stations))
         check = None
         if case.required_duty:
-            check = _duty_check(case, heating, hs_inlet, march)
+            check = _area_for_duty(case, heating, hs_inlet, march)
             if check.status != "ok":
                 notes.append(check.message)
     except Cancelled:
         return cancelled(case, methods=methods)
 
-    primary = check if (case.question == "duty_check" and check is not None
+    primary = check if (case.question == "area_for_duty" and check is not None
                         and check.status == "ok") else outcome
     summary = march_summary(case, tube, heating, hs_inlet, primary, outcome, check)
     warnings = checks.evaluate(case, primary, fluid=fluid, service="evaporator")
@@ -277,7 +277,7 @@ def _shoot_counter_current(case, fluid, heating, hs_inlet, march, P0):
     return solve_counter_current(one, h_low, hs_inlet)
 
 
-def _duty_check(case, heating, hs_inlet, march):
+def _area_for_duty(case, heating, hs_inlet, march):
     """March until the required duty is absorbed; the length it takes is the required area."""
     Q = case.required_duty
     if hs_inlet is None or case.heating.flow_arrangement == "co":
@@ -292,6 +292,14 @@ def _duty_check(case, heating, hs_inlet, march):
     return march(h_out, stop_duty=Q, share=(0.5, 0.5))
 
 
+def exit_state(x, T, T_sat) -> dict:
+    """The exit's vapour quality where it means one (0 to 1); beyond, the superheat of
+    the vapour or the subcooling of the liquid [K] instead of a quality above 1 or below 0."""
+    return {"exit_quality": x if 0.0 <= x <= 1.0 else None,
+            "exit_superheat_K": T - T_sat if x > 1.0 else None,
+            "exit_subcooling_K": T_sat - T if x < 0.0 else None}
+
+
 def integrate_along_z(stations, attr):
     """Trapezoidal integral of a station attribute over z."""
     total = 0.0
@@ -303,7 +311,7 @@ def integrate_along_z(stations, attr):
 def march_summary(case, tube, heating, hs_inlet, primary, performance, check) -> dict:
     """Summary of the march that answers the case's question.
 
-    For a performance rating that is the full-length march. For a duty check it is
+    For a performance rating that is the full-length march. For the area-for-duty question it is
     the march that stops where the required duty is absorbed: its U and mean
     temperature difference are averages over the required area, and the
     full-length duty is kept as ``performance_duty_W``.
@@ -340,7 +348,7 @@ def march_summary(case, tube, heating, hs_inlet, primary, performance, check) ->
         "u_service_W_m2K": ua / area_marched,
         "mean_temperature_difference_K": mtd,
         "over_design_pct": None,
-        "exit_quality": last.x,
+        **exit_state(last.x, last.T_process, last.T_sat),
         "exit_temperature_K": last.T_process,
         "pressure_drop_boiling_Pa": first.P - last.P,
         "pressure_drop_heating_Pa": dp_heating,

@@ -44,19 +44,22 @@ Summary keys (the evaporator's, with a kettle meaning):
 * ``area_m2``: outer area of the straight tube lengths (U-bends not counted).
 * ``u_clean_W_m2K``, ``u_service_W_m2K``: local U on the outer area, averaged over the
   area; ``mean_temperature_difference_K`` = duty / (U_service A), the effective one.
-* ``over_design_pct``, ``required_area_m2`` (duty check): the tube length is scaled
+* ``over_design_pct``, ``required_area_m2`` (area for duty): the tube length is scaled
   until the bundle takes the required duty (same tubes, bundle and passes);
   over-design = A / A_required - 1.
 * ``exit_quality``: vapour mass fraction of the kettle outlet (vapour over feed);
   ``exit_temperature_K``: saturation at the vapour space (vapour and overflow liquid).
-* ``pressure_drop_boiling_Pa``: the liquid head from the vapour space to the bottom of
-  the bundle, by which the boiling pressure there exceeds the vapour-space pressure
-  (a pool has no flow pressure drop).
+  A feed that would all boil off is a failed rating (the level would fall); a feed
+  that leaves below saturation gives ``exit_subcooling_K`` instead of a quality.
+* ``static_head_over_bundle_Pa``: the liquid head from the weir level to the bottom of
+  the bundle, by which the boiling pressure there exceeds the vapour-space pressure;
+  ``pressure_drop_boiling_Pa`` is None (a pool has no flow pressure drop).
 * ``pressure_drop_heating_Pa``: tube-side friction (two-phase method for condensing
   steam) plus, for a liquid, Kern's four velocity heads per pass for the returns.
 * ``heating_outlet_temperature_K``: tube-side outlet; ``steam_flow_kg_s``: the steam.
 * ``max_heat_flux_W_m2``: the largest local flux on the outer (boiling) surface;
-  ``max_chf_ratio``: the largest local flux over the bundle maximum flux.
+  ``max_chf_ratio``: the bundle's mean flux over the bundle maximum flux (Palen's
+  limit is one on the mean flux, so mean by mean).
 * ``dryout_z_m``: always None; a kettle's burnout limit is the bundle maximum flux.
 
 and the kettle's own: ``bundle_max_heat_flux_W_m2``, ``bundle_factor`` (Palen's
@@ -419,7 +422,7 @@ def _trap_march(kt: _Kettle, n, prog, cancel, span=1.0):
 
 
 def _rate_length(kt: _Kettle, length, n, *, mass_flow=None, cancel=None):
-    """One march with another tube length (duty check): (kettle, outcome, march).
+    """One march with another tube length (area for duty): (kettle, outcome, march).
 
     Nothing else depends on the length: the bands, the maximum flux (Phi_b is
     2.2 D_b / (N d_o)) and the property caches are shared; the heating medium is a
@@ -484,7 +487,7 @@ def rate_kettle(case, *, increments=None, progress=None, cancel=None) -> Result:
             return failed(case, outcome.message, methods=methods,
                           profiles=_profiles(kt, outcome, march))
         if case.required_duty:
-            check = _duty_check(case, kt, n, cancel, prog)
+            check = _area_for_duty(case, kt, n, cancel, prog)
             if check[1].status != "ok":
                 notes.append(check[1].message)
     except Cancelled:
@@ -493,11 +496,11 @@ def rate_kettle(case, *, increments=None, progress=None, cancel=None) -> Result:
         progress(1.0)
 
     primary = (kt, outcome, march)
-    if case.question == "duty_check" and check is not None and check[1].status == "ok":
+    if case.question == "area_for_duty" and check is not None and check[1].status == "ok":
         primary = check
     summary = kettle_summary(case, primary, (kt, outcome), check)
     warnings = _warnings(case, primary, summary)
-    if summary["exit_quality"] >= 1.0:
+    if (summary["exit_quality"] or 0.0) >= 1.0:
         return _feed_boiled_dry(case, summary, warnings, methods, primary)
     if check is not None and check[1].status != "ok":
         warnings.append(RatingWarning("duty-not-reached", "error", check[1].message, None))
@@ -525,7 +528,7 @@ def _feed_boiled_dry(case, summary, warnings, methods, primary) -> Result:
                   profiles=_profiles(primary[0], primary[1], primary[2]))
 
 
-def _duty_check(case, kt, n, cancel, prog):
+def _area_for_duty(case, kt, n, cancel, prog):
     """The tube length at which the bundle takes the required duty: (kettle, outcome, march)."""
     from ..march import MarchOutcome
 
@@ -669,13 +672,21 @@ def kettle_summary(case, primary, performance, check) -> dict:
         "u_service_W_m2K": ua / area_marched,
         "mean_temperature_difference_K": duty / ua if ua > 0.0 else None,
         "over_design_pct": None,
-        "exit_quality": x_out,
+        "exit_quality": x_out if x_out >= 0.0 else None,
+        "exit_superheat_K": None,
+        # a feed that leaves subcooled: the overflow at the saturation temperature is
+        # mixed with feed that never reached it
+        "exit_subcooling_K": -x_out * sat.h_lv / sat.cp_l if x_out < 0.0 else None,
         "exit_temperature_K": sat.T_sat,
-        "pressure_drop_boiling_Pa": sat.rho_l * g * (k.weir_height - k.bundle_bottom),
+        # the pool is not a flow path: no boiling-side pressure drop, but the liquid head
+        # over the bottom of the bundle raises its boiling point there
+        "pressure_drop_boiling_Pa": None,
+        "static_head_over_bundle_Pa": sat.rho_l * g * (k.weir_height - k.bundle_bottom),
         "pressure_drop_heating_Pa": _heating_dp(kt, outcome),
         "heating_outlet_temperature_K": last.T_heating,
         "max_heat_flux_W_m2": max(s.q for s in st),
-        "max_chf_ratio": max(s.chf_ratio for s in st),
+        # Palen's bundle maximum is a limit on the bundle's mean flux: mean by mean
+        "max_chf_ratio": duty / area_marched / kt.q_bundle_max,
         "dryout_z_m": None,
         "exit_pressure_Pa": b.inlet_pressure,
         "steam_flow_kg_s": m_h if h.condensing else None,
@@ -803,7 +814,7 @@ def _warnings(case, primary, s) -> list[RatingWarning]:
             "impingement", "warning",
             f"rho v^2 at the liquid inlet {rv2:.4g} kg/m/s^2 exceeds "
             f"{lim.kettle_inlet_nozzle_rho_v2:.4g}: an impingement plate is needed", None))
-    if s["exit_quality"] >= 1.0:
+    if (s["exit_quality"] or 0.0) >= 1.0:
         out.append(RatingWarning(
             "kettle-dry", "error",
             f"the duty would vaporise all the feed (outlet quality {s['exit_quality']:.3f}): "

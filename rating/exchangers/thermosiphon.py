@@ -545,10 +545,13 @@ def rate_thermosiphon(case, *, increments=None, progress=None, cancel=None) -> R
     summary["balances_found"] = len(crossings)     # stable or not, wet or dry
     if case.required_duty:
         summary["required_duty_W"] = case.required_duty
-        summary["over_design_pct"] = (summary["duty_W"] / case.required_duty - 1.0) * 100.0
-    if case.required_duty:  # the duty question's other figures, as the other types give them
-        summary["required_area_m2"] = summary["area_m2"] * case.required_duty / summary["duty_W"]
-        if summary["mean_temperature_difference_K"]:
+        # Area basis, as for every type: the area the required duty takes at the rated
+        # mean flux (the circulation, and with it the coefficient, changes with the length,
+        # so the tube is not marched on past its end as the other types do).
+        a_req = summary["area_m2"] * case.required_duty / summary["duty_W"]
+        summary["required_area_m2"] = a_req
+        summary["over_design_pct"] = (summary["area_m2"] / a_req - 1.0) * 100.0
+        if summary["mean_temperature_difference_K"]:  # as the other types give them
             u_req = case.required_duty / (summary["area_m2"]
                                           * summary["mean_temperature_difference_K"])
             summary["u_required_W_m2K"] = u_req
@@ -767,7 +770,8 @@ def _loop_warnings(case, fluid, loop, chosen, crossings, scan, summary) -> list[
     if cr is not None and cr < lim.thermosiphon_circulation_ratio_min:
         out.append(RatingWarning(
             "circulation-ratio", "warning",
-            f"circulation ratio {cr:.2f} kg liquid per kg vapour is below the usual "
+            f"circulation ratio {cr:.2f} (kg through the tubes per kg of vapour made, 1 / exit "
+            f"quality) is below the usual "
             f"{lim.thermosiphon_circulation_ratio_min:g}-{lim.thermosiphon_circulation_ratio_max:g}"))
     elif cr is None or cr > lim.thermosiphon_circulation_ratio_max:
         what = "no vapour leaves the tubes" if cr is None else \
