@@ -241,3 +241,32 @@ def test_progress_reaches_one():
             progress=seen.append).run(2e5, CP * 300.0, None)
     assert len(seen) == 10 and seen[-1] == pytest.approx(1.0)
     assert all(b > a for a, b in zip(seen, seen[1:]))
+
+
+def test_friction_and_gravity_of_a_liquid_column_match_darcy_weisbach():
+    # Unheated liquid rising in a vertical tube (the heating medium at the liquid's own
+    # temperature): the pressure falls by Darcy-Weisbach friction plus the static head,
+    # dp = (f L / D) G^2 / (2 rho) + rho g L, with f the root of Colebrook's (1939)
+    # equation solved here on its own (scipy brentq), g = 9.80665 m/s^2.
+    from scipy.optimize import brentq
+
+    roughness, T = 4.5e-5, 300.0
+    fluid = ConstantFluid(T_sat=400.0)
+    tube = _tube(fluid, vertical=True, roughness=roughness)
+    out = Marcher(tube, ConstantHeating(1000.0, T=T), L, 40).run(5e5, CP * T, None)
+    assert out.status == "ok" and out.stations[-1].q == 0.0
+    G = M_TUBE / (math.pi * D_I**2 / 4)
+    Re, rho = G * D_I / 3e-4, 950.0
+
+    def colebrook(f):
+        return 1 / math.sqrt(f) + 2 * math.log10(roughness / D_I / 3.7 + 2.51 / (Re * math.sqrt(f)))
+
+    f = brentq(colebrook, 1e-4, 0.2, xtol=1e-14)
+    expected = f * L / D_I * G * G / (2 * rho) + rho * 9.80665 * L
+    drop = out.stations[0].P - out.stations[-1].P
+    assert drop == pytest.approx(expected, rel=1e-6)
+    # horizontal: the friction alone
+    flat = Marcher(_tube(fluid, roughness=roughness), ConstantHeating(1000.0, T=T), L, 40).run(
+        5e5, CP * T, None)
+    assert flat.stations[0].P - flat.stations[-1].P == pytest.approx(
+        f * L / D_I * G * G / (2 * rho), rel=1e-6)

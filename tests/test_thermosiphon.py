@@ -74,8 +74,13 @@ def test_every_sample_balances_to_10_pa_and_closes_its_energy_balance(rated):
         s = r.summary
         assert r.status in ("ok", "warnings"), (name, r.message)
         assert abs(s["pressure_balance_residual_Pa"]) < 10.0, name
-        assert abs(s["duty_W"] - s["duty_heating_side_W"]) / s["duty_W"] < 1e-4, name
-        assert s["circulation_ratio"] == pytest.approx(1.0 / s["exit_quality"], rel=1e-12)
+        # the boiling side's duty from its own states through PropsSI: column liquid in,
+        # the reported exit pressure and quality out, at the reported circulation
+        fl, P_col = case.boiling.fluid, case.boiling.inlet_pressure
+        h_in = (CP.PropsSI("H", "P", P_col, "T", case.boiling.inlet_temperature, fl)
+                if case.boiling.inlet_temperature else CP.PropsSI("H", "P", P_col, "Q", 0, fl))
+        h_out = CP.PropsSI("H", "P", s["exit_pressure_Pa"], "Q", s["exit_quality"], fl)
+        assert s["duty_W"] == pytest.approx(s["circulation_kg_s"] * (h_out - h_in), rel=2e-3)
         print(f"{name}: residual {s['pressure_balance_residual_Pa']:.3g} Pa, "
               f"W = {s['circulation_kg_s']:.4g} kg/s")
 
