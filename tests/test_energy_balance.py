@@ -41,8 +41,10 @@ def test_heating_liquid_gives_up_the_duty_the_boiling_side_takes(case):
     assert s["duty_W"] + loss == pytest.approx(given_up, rel=2e-3)
 
 
-@pytest.mark.parametrize("case", [c for c in cases("steam")
-                                  if c.values[0].type == "evaporator"])
+@pytest.mark.parametrize("case", [c for c in cases("steam")   # a pure fluid by name
+                                  if c.values[0].type == "evaporator"
+                                  and isinstance(c.values[0].boiling.fluid, str)
+                                  and "&" not in c.values[0].boiling.fluid])
 def test_boiling_stream_takes_the_duty_between_its_own_states(case):
     # In-tube evaporators on steam: the boiling fluid's enthalpy rise from its inlet state
     # to the exit pressure and quality (or temperature) the result reports.
