@@ -24,7 +24,7 @@ _NOTHING = object()
 
 
 def choice_text(value) -> str:
-    """A static choice as the form shows it: 'duty_check' reads 'duty check'."""
+    """A static choice as the form shows it: 'area_for_duty' reads 'area for duty'."""
     return str(value).replace("_", " ")
 
 

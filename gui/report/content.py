@@ -347,7 +347,7 @@ def build(project, cases, results, units: str, source_path=None, when=None) -> R
     # --- one section per case
     for i, (case, result, cmp) in enumerate(zip(cases, results, comparisons), 1):
         rep.add(f"<h1{BREAK}>{esc(case.name)}</h1>")
-        question = "duty check" if case.required_duty is not None else "performance"
+        question = "area for duty" if case.question == "area_for_duty" else "performance"
         rep.add(f"<p>{esc(TYPE_TITLES.get(case.type, case.type))}; question: {question}; "
                 f"status: {esc(result.status)}</p>")
         rep.keep("h2", "Verdict")
