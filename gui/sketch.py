@@ -162,6 +162,15 @@ class UnitSketch(QWidget):
     # --- kettle: the end view of the shell, the bundle, the liquid up to the weir
     def _kettle(self, p, box):
         d = self.draft
+        try:  # dimensions left empty are drawn at the engine's published defaults
+            import dataclasses
+
+            from rating.case import KettleShell
+            from rating.project import from_dict
+
+            d = {"kettle": dataclasses.asdict(from_dict(d.get("kettle"), KettleShell))}
+        except Exception:  # noqa: BLE001 - an unfinished kettle: draw what is given
+            pass
         D = _num(d, "kettle.kettle_diameter")
         port = _num(d, "kettle.port_diameter")
         bundle = _num(d, "kettle.bundle_diameter")
