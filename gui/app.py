@@ -13,6 +13,7 @@ def warm_up():
     """Import the engine and its property library (the slow part of starting)."""
     import CoolProp.CoolProp  # noqa: F401
     import rating.exchangers  # noqa: F401
+    import matplotlib.figure  # noqa: F401  (the plots are built just after the first paint)
 
 
 def main(argv=None) -> int:

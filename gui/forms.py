@@ -185,6 +185,8 @@ class Row:
             tip.append("may be left empty")
         tooltip = "\n".join(tip)
         self.label.setToolTip(tooltip)
+        if isinstance(value, dict):
+            tooltip = "A user property table (cp, rho, mu, k against T); edit it in the project file."
         if isinstance(self.editor, QComboBox):
             self._fill_choices(value, draft)
         elif f.kind == "flag":
@@ -246,7 +248,7 @@ class Row:
 def _table_text(value) -> str:
     if isinstance(value, dict):
         n = max((len(v) for v in value.values() if isinstance(v, (list, tuple))), default=0)
-        return f"user property table, {n} points (edit in the file)"
+        return f"table of {n} points"
     if value is None:
         return ""
     return str(value)

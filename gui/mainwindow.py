@@ -25,7 +25,6 @@ from rating import catalogue
 from . import files, units
 from .document import Document, new_draft
 from .forms import CaseForm
-from .plots import AlongTubePanel, BalancePanel
 from .results import CompareTable, FiguresTable, WarningsList
 from .runner import RATING, Runner
 from .sketch import UnitSketch
@@ -225,8 +224,11 @@ class MainWindow(QMainWindow):
         top.setSizes([470, 330])
         self.tabs = QTabWidget()
         self.tabs.setObjectName("result-tabs")
-        self.along = AlongTubePanel()
-        self.balance = BalancePanel()
+        # the plot panels are made just after the window first paints: importing and
+        # building matplotlib is the slowest part of starting (see ensure_plots)
+        self._along = self._balance = None
+        self.along_slot, self.balance_slot = QLabel("preparing the plots…"), QLabel("")
+        self.along_slot.setAlignment(Qt.AlignCenter)
         self.compare = CompareTable()
         side = QWidget()
         sl2 = QVBoxLayout(side)
@@ -235,8 +237,8 @@ class MainWindow(QMainWindow):
         self.compare_names.setWordWrap(True)
         sl2.addWidget(self.compare_names)
         sl2.addWidget(self.compare, 1)
-        self.tabs.addTab(self.along, "Along the tube")
-        self.tabs.addTab(self.balance, "Circulation")
+        self.tabs.addTab(self.along_slot, "Along the tube")
+        self.tabs.addTab(self.balance_slot, "Circulation")
         self.tabs.addTab(side, "Side by side")
         self.studies = StudiesPanel.for_window(self)
         self.tabs.addTab(self.studies, "Studies")
@@ -415,8 +417,41 @@ class MainWindow(QMainWindow):
         self.runner.progressChanged.connect(self._progress)
         self.case_list.currentRowChanged.connect(self._row_chosen)
         self.case_list.itemDoubleClicked.connect(lambda _it: self.rename_case())
-        self.warnings.positionChosen.connect(self.along.mark)
+        self.warnings.positionChosen.connect(lambda z: self.along.mark(z))
         self.compare_box.activated.connect(self._compare_chosen)
+
+    # --- plots, made after the first paint ---
+    def ensure_plots(self):
+        if self._along is not None:
+            return
+        from .plots import AlongTubePanel, BalancePanel
+
+        self._along, self._balance = AlongTubePanel(), BalancePanel()
+        current = self.tabs.currentIndex()
+        for i, panel, title in ((0, self._along, "Along the tube"), (1, self._balance, "Circulation")):
+            visible = self.tabs.isTabVisible(i)
+            self.tabs.removeTab(i)
+            self.tabs.insertTab(i, panel, title)
+            self.tabs.setTabVisible(i, visible)
+        self.tabs.setCurrentIndex(current)
+        self.along_slot.deleteLater()
+        self.balance_slot.deleteLater()
+        self._shown = None
+        self._show_answer()
+
+    @property
+    def along(self):
+        self.ensure_plots()
+        return self._along
+
+    @property
+    def balance(self):
+        self.ensure_plots()
+        return self._balance
+
+    def showEvent(self, event):
+        super().showEvent(event)
+        QTimer.singleShot(0, self.ensure_plots)
 
     # --- the case list ---------------------------------------------------------------------
     def _show_cases(self):

@@ -90,7 +90,7 @@ class _Canvas(QWidget):
 
     # margins in pixels (left, right, top, bottom, between rows, between columns); a fixed
     # layout, recomputed on resize, is several times cheaper to draw than an automatic one
-    MARGINS = (62, 14, 24, 44, 44, 70)
+    MARGINS = (72, 14, 24, 44, 44, 70)
 
     def __init__(self, parent=None, toolbar=True):
         super().__init__(parent)
@@ -108,6 +108,20 @@ class _Canvas(QWidget):
 
     def save(self, path):
         self.figure.savefig(path, dpi=150)
+
+    def redraw(self):
+        """Draw when shown: a panel on a hidden tab waits until its tab is chosen."""
+        if self.canvas.isVisible():
+            self._stale_picture = False
+            self.canvas.draw_idle()
+        else:
+            self._stale_picture = True
+
+    def showEvent(self, event):
+        super().showEvent(event)
+        if getattr(self, "_stale_picture", False):
+            self._stale_picture = False
+            self.canvas.draw_idle()
 
     def _relayout(self):
         w, h = self.figure.get_size_inches() * self.figure.dpi
@@ -137,7 +151,7 @@ class AlongTubePanel(_Canvas):
     def __init__(self, parent=None):
         super().__init__(parent)
         self.grid = (3, 2)
-        self.MARGINS = (62, 14, 22, 62, 34, 70)
+        self.MARGINS = (72, 14, 22, 62, 34, 80)
         axes = self.figure.subplots(3, 2, sharex=True)
         self.axes = [ax for row in axes for ax in row]
         self.lines, self.ghosts, self.marks, self.bands, self.pass_marks = {}, {}, [], [], []
@@ -202,6 +216,8 @@ class AlongTubePanel(_Canvas):
             ghost.set_visible(vals is not None and len(oz) > 0)
             if ghost.get_visible():
                 ghost.set_data(oz, _display(vals, _quantity(key), self.system))
+            else:
+                ghost.set_data([], [])
         self.compare_text.set_text(f"faint lines: {other_name}" if other is not None else "")
         # shaded regimes
         regimes = profiles.get("regime", ())
@@ -226,14 +242,14 @@ class AlongTubePanel(_Canvas):
             coll.set_segments([[(x, 0), (x, 1)] for x in starts])
         self.message.set_text("" if result is not None else "no rating yet")
         for ax in self.axes:
-            ax.relim()
+            ax.relim(visible_only=True)
             ax.autoscale_view()
         self._limit_flux_axis()
         if len(z):
             lo, hi = float(np.nanmin(z)), float(np.nanmax(z))
             if hi > lo:
                 self.axes[0].set_xlim(lo, hi)
-        self.canvas.draw_idle()
+        self.redraw()
 
     def _limit_flux_axis(self):
         """The flux panel scales to the heat flux, showing the critical flux where it is near."""
@@ -255,7 +271,7 @@ class AlongTubePanel(_Canvas):
             if z_m is not None:
                 x = units.to_display(z_m, "length", self.system)
                 m.set_xdata([x, x])
-        self.canvas.draw_idle()
+        self.redraw()
 
     def line_data(self, key):
         """The plotted (x, y) of a profile line, in display units (for tests and checks)."""
@@ -282,6 +298,7 @@ class BalancePanel(_Canvas):
         (self.chosen,) = ax.plot([], [], "o", color=INK, ms=8, label="operating point")
         (self.unsolved,) = ax.plot([], [], "x", color="#888888", ms=6, label="not solved")
         self.note = ax.text(0.02, 0.97, "", transform=ax.transAxes, va="top", fontsize=FONT)
+        ax.xaxis.set_major_formatter(FuncFormatter(_tick))
         self.legend = None
         self.system = "SI"
 
@@ -319,6 +336,6 @@ class BalancePanel(_Canvas):
         self.legend = self.ax.legend(handles=shown, loc="upper left", bbox_to_anchor=(0.0, 0.92),
                                      fontsize=FONT - 1, frameon=True, framealpha=0.85,
                                      edgecolor="none") if shown else None
-        self.ax.relim()
+        self.ax.relim(visible_only=True)
         self.ax.autoscale_view()
-        self.canvas.draw_idle()
+        self.redraw()

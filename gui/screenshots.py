@@ -28,6 +28,8 @@ def main(argv=None) -> int:
     p.add_argument("outdir")
     p.add_argument("--size", default="1280x800", help="window size, WIDTHxHEIGHT")
     p.add_argument("--only", help="only samples whose file name contains this")
+    p.add_argument("--font-scale", type=float, default=1.0,
+                   help="enlarge the system font (e.g. 1.5) to check that nothing is clipped")
     args = p.parse_args(argv)
     os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
     # settings and autosaves of these pictures go to a scratch folder, not the user's
@@ -39,13 +41,18 @@ def main(argv=None) -> int:
     app = QApplication.instance() or QApplication([sys.argv[0]])
     app.setOrganizationName("EbullioScreenshots")
     app.setApplicationName("EbullioScreenshots")
+    if args.font_scale != 1.0:
+        font = app.font()
+        font.setPointSizeF(font.pointSizeF() * args.font_scale)
+        app.setFont(font)
     from . import units
     from .mainwindow import MainWindow, sample_files
 
     out = Path(args.outdir)
     out.mkdir(parents=True, exist_ok=True)
     w, h = (int(v) for v in args.size.lower().split("x"))
-    suffix = "" if (w, h) == (1280, 800) else f"-{w}x{h}"
+    suffix = ("" if (w, h) == (1280, 800) else f"-{w}x{h}") + \
+        ("" if args.font_scale == 1.0 else f"-font{args.font_scale:g}")
     written = []
 
     def shot(window, name):
@@ -85,6 +92,9 @@ def main(argv=None) -> int:
             window.compare_to("")
     window.doc.undo.setClean()
     window.close()
+    window.deleteLater()            # release the canvases before the interpreter ends
+    app.processEvents()
+    del window
     for path in written:
         print(path)
     return 0

@@ -59,7 +59,8 @@ def verdict(result, system: str, *, message: str = "") -> str:
     serious = [w for w in result.warnings if w.severity in ("warning", "error")]
     if serious:
         placed = [w.z_m for w in serious if w.z_m is not None]
-        where = f", the first at z = {amount(min(placed), 'length', system, 3)}" if placed else ""
         n = len(serious)
+        first = "the first at" if n > 1 else "at"
+        where = f", {first} z = {amount(min(placed), 'length', system, 3)}" if placed else ""
         parts.append(f"{n} warning{'s' if n > 1 else ''}{where}")
     return "; ".join(parts) + "."

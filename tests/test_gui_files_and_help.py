@@ -136,3 +136,19 @@ def test_the_caution_shows_on_first_start_only(qtbot, scratch):
     w.first_start()
     assert seen == [1]
     assert "qualified engineer" in w.caution.text()
+
+
+def test_a_failed_rating_says_why_and_keeps_the_last_good_result_stale(window, qtbot):
+    from gui_helpers import SAMPLES
+
+    w = window
+    good = open_rated(qtbot, w, SAMPLES / "stripper-reboiler.ebullio").result
+    eid = w.current_id
+    with qtbot.waitSignal(w.runner.resultArrived, timeout=RATING_TIMEOUT_MS):
+        set_text(qtbot, w, "thermosiphon.liquid_level", "0.2")
+    st = w.runner.state(eid)
+    assert st.status == "failed"
+    # the engine's own words (a level of 0.2 m cannot drive the loop's losses)
+    assert st.failure.message in w.verdict.text() and "circulate" in w.verdict.text()
+    assert st.result is good and st.stale and "stale" in w.verdict.text()
+    assert w.figures.value("duty_W") not in ("", "not computed")
