@@ -1,1 +1,4 @@
-"""Ebullio desktop front end (Qt). Built in its own issue; the engine never imports it."""
+"""Ebullio desktop front end (Qt). The engine never imports it."""
+from .refcount_guard import guard as _guard
+
+_guard()
