@@ -664,12 +664,13 @@ class MainWindow(QMainWindow):
         other, other_name = self._compared()
         is_ts = entry.type == "thermosiphon"
         curve_from = st.failure if st.failure is not None else result
-        shown = (id(result), id(other), id(curve_from), st.stale, self.system, entry.type, other_name)
+        # the plots redraw only for a new result, not when the inputs go stale (a full
+        # draw would block the typing); the verdict strip and the grey figures say stale
+        shown = (id(result), id(other), id(curve_from), self.system, entry.type, other_name)
         if shown != self._shown:          # a redraw only when what the plots show changed
             self._shown = shown
             self.along.system = self.system
-            self.along.show_result(result, other, other_name, stale=st.stale,
-                                   kettle=entry.type == "kettle")
+            self.along.show_result(result, other, other_name, kettle=entry.type == "kettle")
             self.tabs.setTabVisible(1, is_ts)
             if is_ts:
                 self.balance.show_result(curve_from, self.system)

@@ -49,6 +49,8 @@ ALONG_TUBE = (
 )
 
 FONT = 8
+CAUTION_SHORT = ("Ebullio: engineering estimates, to be checked by a qualified engineer "
+                 "under local codes and licensed practice")
 
 
 def _quantity(key: str) -> str:
@@ -90,7 +92,7 @@ class _Canvas(QWidget):
 
     # margins in pixels (left, right, top, bottom, between rows, between columns); a fixed
     # layout, recomputed on resize, is several times cheaper to draw than an automatic one
-    MARGINS = (72, 14, 24, 44, 44, 70)
+    MARGINS = (72, 14, 30, 44, 44, 70)
 
     def __init__(self, parent=None, toolbar=True):
         super().__init__(parent)
@@ -105,6 +107,9 @@ class _Canvas(QWidget):
             self.toolbar.setIconSize(self.toolbar.iconSize() * 0.8)
             lay.addWidget(self.toolbar)
         lay.addWidget(self.canvas, 1)
+        # the caution travels with every saved picture
+        self.figure.text(0.995, 0.997, CAUTION_SHORT, ha="right", va="top", fontsize=FONT - 2,
+                         color="#777777")
 
     def save(self, path):
         self.figure.savefig(path, dpi=150)
@@ -135,7 +140,8 @@ class _Canvas(QWidget):
                                     bottom=bottom / h, hspace=hgap / cell_h, wspace=wgap / cell_w)
 
     def _style(self, ax, title):
-        ax.set_title(title, fontsize=FONT + 1, loc="left", color=INK)
+        # a title at a fixed height: matplotlib skips its costly search for a free place
+        ax.set_title(title, fontsize=FONT + 1, loc="left", color=INK, y=1.0, pad=3)
         ax.tick_params(labelsize=FONT)
         ax.yaxis.set_major_locator(MaxNLocator(4))
         ax.yaxis.set_major_formatter(FuncFormatter(_tick))
@@ -151,7 +157,7 @@ class AlongTubePanel(_Canvas):
     def __init__(self, parent=None):
         super().__init__(parent)
         self.grid = (3, 2)
-        self.MARGINS = (72, 14, 22, 62, 34, 80)
+        self.MARGINS = (72, 14, 30, 62, 34, 80)
         axes = self.figure.subplots(3, 2, sharex=True)
         self.axes = [ax for row in axes for ax in row]
         self.lines, self.ghosts, self.marks, self.bands, self.pass_marks = {}, {}, [], [], []
@@ -177,7 +183,7 @@ class AlongTubePanel(_Canvas):
         from matplotlib.patches import Patch
         self._regime_handles = {r: Patch(facecolor=REGIME_FILL[r], label=r) for r in REGIME_FILL}
         self.regime_legend = None
-        self.compare_text = self.figure.text(0.995, 0.002, "", ha="right", va="bottom",
+        self.compare_text = self.figure.text(0.005, 0.997, "", ha="left", va="top",
                                              fontsize=FONT - 1, color="#555555")
         self.message = self.axes[0].text(0.5, 0.5, "", transform=self.axes[0].transAxes,
                                          ha="center", va="center", fontsize=FONT + 1, color="#555555")
@@ -197,7 +203,7 @@ class AlongTubePanel(_Canvas):
             if i >= 4:
                 ax.set_xlabel(f"{zlabel} [{units.unit_label('length', system)}]", fontsize=FONT)
 
-    def show_result(self, result, other=None, other_name="", stale=False, kettle=False):
+    def show_result(self, result, other=None, other_name="", kettle=False):
         """Update every line from a result (None clears), the ghosts from ``other``."""
         self.set_axes_units(self.system, kettle)
         profiles = result.profiles if result is not None else {}
@@ -208,7 +214,6 @@ class AlongTubePanel(_Canvas):
                 line.set_data([], [])
             else:
                 line.set_data(z, _display(vals, _quantity(key), self.system))
-            line.set_alpha(0.55 if stale else 1.0)
         oprof = other.profiles if other is not None else {}
         oz = _display(oprof.get("z_m", ()), "length", self.system)
         for key, ghost in self.ghosts.items():
