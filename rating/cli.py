@@ -14,7 +14,7 @@ Exit status (also in ``--help``, the README and DEVELOPERS.md):
 Everything a run could refuse (file, options, output folder) is checked before the
 first case is rated, so no rating is thrown away for an output problem. The small
 functions below (``guarded``, ``refuse``, ``write_out``, ``exit_code``, ``csv_names``,
-``prepare_folder``) are meant for other commands too.
+``prepare_folder``, ``label_unit``, ``format_figure``) are meant for other commands too.
 
 Only the standard library is imported at module level: ``ebullio-rate --help`` does
 not load the fluid-property library, whose import is most of a cold start.
@@ -247,6 +247,8 @@ def format_figure(v) -> str:
         return "not computed"
     if isinstance(v, str) or isinstance(v, bool):
         return str(v)
+    if v != v or v in (float("inf"), float("-inf")):
+        return "not computed"
     text = f"{v:.4g}"
     if "e" in text and 1e-3 <= abs(v) < 1e12:
         text = f"{float(text):,.0f}"
