@@ -45,6 +45,24 @@ COLUMNS = {
 #: Single values of a saturation table, with their units.
 CONSTANTS = {"critical_pressure": "Pa", "molar_mass": "kg/kmol"}
 
+#: Hard ranges of the columns and values, wide enough for any boiling fluid from
+#: cryogens to liquid metals near their critical points (common practice): beyond them a
+#: value is a slip of the unit or the exponent, and would overflow the arithmetic.
+RANGES = {
+    "T": (1.0, 2000.0), "P": (1.0, 1e8), "h_lv": (100.0, 1e7), "rho_l": (10.0, 3e4),
+    "rho_v": (1e-5, 3e4), "mu_l": (1e-6, 1e3), "mu_v": (1e-7, 0.1), "k_l": (0.01, 1000.0),
+    "k_v": (1e-4, 10.0), "cp_l": (100.0, 1e5), "cp_v": (100.0, 1e5), "sigma": (1e-6, 1.0),
+    "critical_pressure": (1e3, 1e8), "molar_mass": (1.0, 1000.0),
+}
+
+
+def _in_range(key: str, v, unit: str, where: str) -> None:
+    lo, hi = RANGES[key]
+    if not lo <= v <= hi:
+        raise InputError(f"{where} = {v:g}: must be from {lo:g} to {hi:g} [{unit}]",
+                         field=f"fluid.{key}")
+
+
 _LOG = ("P", "mu_l", "mu_v")  # interpolated in the logarithm
 
 
@@ -71,6 +89,7 @@ def check_table(spec: dict) -> None:
         if not _positive_number(v):
             raise InputError(f"fluid.{key} = {v!r}: must be a number > 0 [{unit}]",
                              field=f"fluid.{key}")
+        _in_range(key, v, unit, f"fluid.{key}")
     n = None
     for key, unit in COLUMNS.items():
         column = spec[key]
@@ -85,6 +104,7 @@ def check_table(spec: dict) -> None:
             if not _positive_number(v):
                 raise InputError(f"fluid.{key}[{i}] = {v!r}: must be a number > 0 [{unit}]",
                                  field=f"fluid.{key}")
+            _in_range(key, v, unit, f"fluid.{key}[{i}]")
     for key in ("T", "P"):
         c = spec[key]
         if any(b <= a for a, b in zip(c, c[1:])):
