@@ -470,6 +470,8 @@ def check_kettle(kettle) -> None:
     if kettle.bundle_diameter is None:
         _fail("bundle_diameter", None, "", "required: the outer tube limit of the bundle [m]")
     d_b = _positive("bundle_diameter", kettle.bundle_diameter, "m")
+    for name in KETTLE_DEFAULTS:  # the given ones are numbers before defaults use them
+        _optional(_positive, name, getattr(kettle, name), "m")
     for name, (rule, source) in KETTLE_DEFAULTS.items():
         if getattr(kettle, name) is None:
             _derive(kettle, name, rule(kettle), source)

@@ -86,6 +86,20 @@ def test_a_table_conductivity_of_1e308_is_refused_naming_the_field(tmp_path, cap
     refused(*run([path], capsys), "cases[0].heating.fluid.k[3]", "W/m/K")
 
 
+def test_a_saturation_table_cp_of_1e308_is_refused_naming_the_field(tmp_path, capsys):
+    sample = SAMPLES / "solvent-table-evaporator.ebullio"
+    data = fz.mutated(sample, ("cases", 0, "boiling", "fluid", "cp_l", 3), 1e308)
+    path = _write(tmp_path, fz.encode(data))
+    refused(*run([path], capsys), "cases[0].boiling.fluid.cp_l[3]", "J/kg/K")
+
+
+def test_a_list_for_a_kettle_dimension_with_a_default_is_refused(tmp_path, capsys):
+    sample = SAMPLES / "light-ends-kettle.ebullio"        # found by the fuzz suite
+    data = fz.mutated(sample, ("cases", 0, "kettle", "port_diameter"), [])
+    path = _write(tmp_path, fz.encode(data))
+    refused(*run([path], capsys), "cases[0].kettle.port_diameter", "number")
+
+
 def test_a_tube_length_at_the_floating_point_floor_is_refused(tmp_path, capsys):
     path = _write(tmp_path, fz._set_text(CHILLER, "length", "5e-324"))
     refused(*run([path], capsys), "cases[0].tubes.length", "too small")
