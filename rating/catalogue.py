@@ -622,21 +622,35 @@ def applies(field: InputField | str, draft: dict) -> bool:
     return True
 
 
+def _fluid_cas(draft: dict) -> str | None:
+    """The boiling fluid's CAS number (methods fitted to some fluids only), if it has one."""
+    from .errors import RatingError
+    from .properties import make_fluid
+
+    spec = get_value(draft, "boiling.fluid")
+    if not spec or not isinstance(spec, (str, dict)):
+        return None
+    try:  # the same object validation asks (a user's table has an empty CAS number)
+        return getattr(make_fluid(spec), "cas", None)
+    except (RatingError, ValueError, TypeError, KeyError):
+        return None
+
+
 def method_choices(path: str, draft: dict) -> list[tuple[str, str, str]]:
     """(name, title, reference) of the methods the engine accepts at ``path`` for this draft."""
     from .correlations import registry
 
     part, _, family = path.partition(".")
-    if part == "kettle":
+    if part == "kettle":  # the kettle's own choices: any registered method of the family
+        from .validation import KETTLE_MIXTURE_INPUTS
+
         family = {"mixture_method": "mixture", "bundle_max_flux": "bundle_chf"}[family]
-    kind = get_value(draft, "type") or "evaporator"
-    orientation = get_value(draft, "tubes.orientation") or "vertical"
-    applicable = getattr(registry, "applicable", None)
-    try:
-        methods = (applicable(family, kind, orientation) if applicable is not None
-                   else registry.methods(family))
-    except TypeError:
-        methods = registry.methods(family)
+        methods = [m for m in registry.methods(family)
+                   if family != "mixture" or set(m.inputs) <= KETTLE_MIXTURE_INPUTS]
+    else:
+        kind = get_value(draft, "type") or "evaporator"
+        orientation = get_value(draft, "tubes.orientation") or "vertical"
+        methods = registry.applicable(family, kind, orientation, _fluid_cas(draft))
     out = [(m.name, m.title, m.reference) for m in methods]
     if family == "tube_dryout":
         out.insert(0, ("auto", "Automatic: 2006 look-up table for water, Katto-Ohno otherwise",

@@ -173,3 +173,14 @@ def test_numeric_paths_are_numbers_of_the_type():
             assert f.kind in ("number", "integer") and kind in f.types
     assert "thermosiphon.liquid_level" in cat.numeric_paths("thermosiphon")
     assert "thermosiphon.liquid_level" not in cat.numeric_paths("evaporator")
+
+
+def test_every_offered_method_choice_is_accepted_for_every_sample():
+    """The desktop offers only what the engine accepts: each choice builds a valid case."""
+    for case in _sample_cases():
+        draft = cat.case_to_draft(case)
+        for f in cat.INPUTS:
+            if f.kind != "choice" or f.choices is not None or not cat.applies(f, draft):
+                continue
+            for name, _title, _reference in cat.method_choices(f.path, draft):
+                cat.with_value(case, f.path, name)  # raises InputError if refused
