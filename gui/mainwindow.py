@@ -273,7 +273,7 @@ class MainWindow(QMainWindow):
         self.case_buttons.setSpacing(2)
         bl.addLayout(self.case_buttons)
         work.insertWidget(0, cases)
-        for i, stretch in enumerate((0, 0, 1)):
+        for i, stretch in enumerate((0, 1, 2)):   # a wide screen widens the datasheet too
             work.setStretchFactor(i, stretch)
         work.setSizes([200, 400, 680])
         self.work = work
