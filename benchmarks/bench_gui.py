@@ -40,7 +40,6 @@ import sys, time
 t_launch = float(sys.argv[1])
 from gui.app import warm_up
 import threading
-threading.Thread(target=warm_up, daemon=True).start()
 from PySide6.QtCore import QTimer
 from PySide6.QtWidgets import QApplication
 app = QApplication([])
@@ -60,6 +59,7 @@ class FirstPaint(QObject):
 first = FirstPaint()
 w.start.installEventFilter(first)
 w.show()
+threading.Thread(target=warm_up, daemon=True).start()     # as gui.app.main does
 def plots():
     w.ensure_plots()
     print("plots", time.time() - t_launch, flush=True)
@@ -158,6 +158,7 @@ def main(argv=None) -> int:
     p = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     p.add_argument("--edits", type=int, default=20)
     p.add_argument("--skip-startup", action="store_true")
+    p.add_argument("--startup-only", action="store_true")
     args = p.parse_args(argv)
     load = os.getloadavg()[0] if hasattr(os, "getloadavg") else float("nan")
     t = time.perf_counter()
@@ -169,6 +170,8 @@ def main(argv=None) -> int:
         painted, plots, rated = startup(ROOT / "samples" / "pentane-vaporiser.ebullio")
         print(f"start-up, fresh process: painted window {painted:.2f} s; plots ready {plots:.2f} s; "
               f"first sample rated {rated:.2f} s")
+    if args.startup_only:
+        return 0
     print(f"edit -> updated plots, {args.edits} edits each (debounce included / excluded), "
           "longest event-loop block")
     for kind, name, med, worst, debounce, block, n in edits(args.edits):

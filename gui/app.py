@@ -18,7 +18,6 @@ def warm_up():
 
 def main(argv=None) -> int:
     argv = list(sys.argv[1:] if argv is None else argv)
-    threading.Thread(target=warm_up, name="ebullio-warm-up", daemon=True).start()
     from PySide6.QtCore import QTimer
     from PySide6.QtWidgets import QApplication
 
@@ -29,6 +28,8 @@ def main(argv=None) -> int:
 
     window = MainWindow()
     window.show()
+    # started once the window exists: imports in two threads share one interpreter lock
+    threading.Thread(target=warm_up, name="ebullio-warm-up", daemon=True).start()
     files = [a for a in argv if not a.startswith("-")]
 
     def after_paint():

@@ -451,7 +451,7 @@ class MainWindow(QMainWindow):
 
     def showEvent(self, event):
         super().showEvent(event)
-        QTimer.singleShot(0, self.ensure_plots)
+        QTimer.singleShot(150, self.ensure_plots)     # after the first paint, not before it
 
     # --- the case list ---------------------------------------------------------------------
     def _show_cases(self):
