@@ -297,7 +297,8 @@ INPUTS: tuple[InputField, ...] = tuple([
            "performance: the duty this unit gives; the other question: the area needed for the "
            "required duty, and the over-design", choices=QUESTIONS),
     _field("required_duty", "Required duty", "power", "service",
-           "The duty the unit must transfer to the process", hard=(0.0, 1e10), usual=(1e3, 2e8),
+           "The duty the unit must transfer to the process; with it a performance rating "
+           "also gives the over-design", hard=(0.0, 1e10), usual=(1e3, 2e8),
            hard_open=_OPEN_LO),
     _field("increments", "Increments along the length", "count", "service",
            "Number of march increments per pass; empty: the engine's own choice",
@@ -611,8 +612,6 @@ def applies(field: InputField | str, draft: dict) -> bool:
         return heating == "liquid" or kind == "kettle"
     if p == "heating.flow_arrangement":
         return heating == "liquid"
-    if p == "required_duty":
-        return get_value(draft, "question") not in (None, "performance")
     if p in ("tubes.pitch", "tubes.layout_angle"):
         return kind == "kettle" or heating == "liquid"
     if p == "methods.shell_side":
