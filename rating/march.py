@@ -206,10 +206,10 @@ class _Local:
 
 
 #: The local flux is converged when the secant's next step is below this share of it.
-FLUX_RTOL = 1e-9
+FLUX_RTOL = 1e-7
 
 
-def flux_root(resid, q_hi, drive, guess):
+def flux_root(resid, q_hi, drive, guess, slope=None):
     """The local flux: root of a series-resistance balance on [0, q_hi].
 
     resid(0) > 0 and resid falls with q; ``drive`` is the whole temperature
@@ -217,9 +217,12 @@ def flux_root(resid, q_hi, drive, guess):
     ``guess`` (the flux of the last local solution: neighbouring states differ by a
     few per cent), a first step holds the total resistance at its value there, then
     secant steps follow (the residual is smooth in q: about three evaluations where a
-    bracketed root took eight). Every evaluation narrows a bracket [lo, hi] that holds
-    the root; a step that would leave it bisects, so the root is never lost. Returns
-    q_hi when resid(q_hi) > 0 (the film resistances are negligible).
+    bracketed root took eight). With ``slope``, the last solution's dresid/dq, the
+    first step is Newton's with it instead (neighbouring stations' slopes differ
+    little). Every evaluation narrows a bracket [lo, hi] that holds the root; a step
+    that would leave it bisects, so the root is never lost. Returns the flux (q_hi
+    when resid(q_hi) > 0: the film resistances are negligible) and the slope of the
+    last secant (None if there was none).
     """
     lo, hi, hi_known = 0.0, q_hi, False
     q = guess
@@ -228,15 +231,20 @@ def flux_root(resid, q_hi, drive, guess):
     r = resid(q)
     drop = drive - r
     q_new = q * drive / drop if drop > 0.0 else 0.5 * q_hi
+    if slope is not None and slope < 0.0:
+        newton = q - r / slope
+        if 0.5 * q < newton < 2.0 * q:
+            q_new = newton
+    secant = None
     for _ in range(200):
         if r > 0.0:
             lo = q
             if q >= q_hi:
-                return q_hi
+                return q_hi, secant
         elif r < 0.0:
             hi, hi_known = q, True
         else:
-            return q
+            return q, secant
         if q_new >= hi:
             q_new = 0.5 * (lo + hi) if hi_known else hi
         elif q_new <= lo:
@@ -244,11 +252,12 @@ def flux_root(resid, q_hi, drive, guess):
         q_old, r_old = q, r
         q, r = q_new, resid(q_new)
         if r == r_old:
-            return q
-        q_new = q - r * (q - q_old) / (r - r_old)
+            return q, secant
+        secant = (r - r_old) / (q - q_old)
+        q_new = q - r / secant
         tol = FLUX_RTOL * q
         if abs(q_new - q) <= tol or (hi_known and hi - lo <= tol):
-            return q
+            return q, secant
     raise RuntimeError(f"the local heat flux did not converge (last {q:.6g} W/m^2)")
 
 
@@ -310,6 +319,7 @@ class Marcher:
         self._floored = False   # the last critical flux was the pool-boiling floor
         self.method_notes: dict[str, float] = {}   # a method taken in place of another -> z
         self._q_guess = 0.0
+        self._q_slope = None
         self.dried_out = False
         self.dryout_z: float | None = None
         self.dryout_cause: str | None = None
@@ -381,11 +391,18 @@ class Marcher:
                 fn = self.fb.function
                 args = {n: avail[n] for n in self.fb.inputs if n != "q"}
 
-                def htc_at(q):
+                def htc_of(q):
                     return fn(q=q, **args, **opts)
             else:
-                def htc_at(q):
+                def htc_of(q):
                     return flow_boiling_htc(name, avail, q, dp_sat, **opts)
+            last = [None, None]
+
+            def htc_at(q):
+                # the root's last flux is asked again for the surface and the films
+                if q != last[0]:
+                    last[0], last[1] = q, htc_of(q)
+                return last[1]
 
             def T_s(q):
                 return sat.T_sat if q <= 0.0 else sat.T_sat + q / htc_at(q)
@@ -443,8 +460,11 @@ class Marcher:
                       sat.T_sat, sat, z)
 
     def _root_flux(self, resid, q_hi, drive):
-        """The local flux from the last one as the first guess (``flux_root``)."""
-        return flux_root(resid, q_hi, drive, self._q_guess)
+        """The local flux from the last one and its slope as the first guess (``flux_root``)."""
+        q, slope = flux_root(resid, q_hi, drive, self._q_guess, self._q_slope)
+        if slope is not None:
+            self._q_slope = slope
+        return q
 
     # ---- local checks and derived values
     def _critical_flux(self, P, x, sat, z):

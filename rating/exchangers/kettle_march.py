@@ -414,6 +414,7 @@ class KettleMarch:
         self.cancel = cancel
         self.per_length = math.pi * D_o * tubes_per_pass     # outer area per metre of path
         self._q_guess = 0.0                                   # the last local flux
+        self._q_slope = None                                  # and the residual's slope there
         self.pass_of_station: list[int] = []
 
     # ---- local solve
@@ -438,7 +439,10 @@ class KettleMarch:
         def resid(q):
             return dT - q * R - heating.film_drop(film, q * ratio) - band.superheat(q)[0]
 
-        q = self._q_guess = flux_root(resid, dT / R, dT, self._q_guess)
+        q, slope = flux_root(resid, dT / R, dT, self._q_guess, self._q_slope)
+        self._q_guess = q
+        if slope is not None:
+            self._q_slope = slope
         return q, T_h, film, band.superheat(q)
 
     def _station(self, z, h, band, loc, duty):
