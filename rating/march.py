@@ -825,11 +825,11 @@ class Marcher:
                 end_local, f_end):
         """Shorten the increment so that it ends on the event, just past it.
 
-        Regula falsi with the Illinois modification on the increment's length, from
-        the event function's values at both ends of the increment already computed
-        (nothing is evaluated twice); each trial length is one midpoint step. The
-        bracket [lo, hi] keeps the event's side at hi, and the increment ends at hi
-        once the bracket is narrower than ``_EVENT_XTOL`` of the increment.
+        Secant steps on the increment's length, from the event function's values at
+        both ends of the increment already computed (nothing is evaluated twice); each
+        trial length is one midpoint step. The bracket [lo, hi] keeps the event's side
+        at hi, a trial outside it bisects, and the increment ends at hi once the
+        bracket is narrower than ``_EVENT_XTOL`` of the increment.
         """
         if f_end <= 0.0:   # the event sits at the very end of the increment
             return step, end, end_local
@@ -838,12 +838,15 @@ class Marcher:
         hi, f_hi, hi_end, hi_local = step, f_end, end, end_local
         if f_lo >= 0.0:    # already there at the start (within the root tolerances)
             lo, f_lo = 0.0, -abs(f_end) * 1e-12
-        side = 0
+        # secant through the last two trials (the bracket's ends at first), kept inside
+        # the bracket and at least tol from its ends, so that a trial on the root's
+        # near side is followed by one just past it
+        a, f_a, b, f_b = lo, f_lo, hi, f_hi
         for _ in range(100):
             if hi - lo <= 2.0 * tol:
                 break
-            length = (lo * f_hi - hi * f_lo) / (f_hi - f_lo)
-            if not math.isfinite(length):   # an infinite margin (no critical flux left)
+            length = b - f_b * (b - a) / (f_b - f_a) if f_b != f_a else 0.5 * (lo + hi)
+            if not lo < length < hi:   # outside the bracket, or infinite: bisect
                 length = 0.5 * (lo + hi)
             length = min(max(length, lo + tol), hi - tol)
             trial = self._step(z, length, P, h, hs, n_par, local, bulk)
@@ -858,14 +861,9 @@ class Marcher:
                                   trial_local[1] if trial_local else None)
             if f >= 0.0:
                 hi, f_hi, hi_end, hi_local = length, f, trial, trial_local
-                if side == 1:
-                    f_lo *= 0.5
-                side = 1
             else:
                 lo, f_lo = length, f
-                if side == -1:
-                    f_hi *= 0.5
-                side = -1
+            a, f_a, b, f_b = b, f_b, length, f
         if hi_local is None and event != "duty":
             bulk1 = self._bulk(hi_end[0], hi_end[1])
             hi_local = (bulk1, self.solve_local(z + hi, hi_end[0], hi_end[1], hi_end[2], bulk1))
@@ -938,7 +936,7 @@ class _MarchFailed(Exception):
         self.outcome = outcome
 
 
-def solve_counter_current(march, h_low, h_inlet) -> MarchOutcome:
+def solve_counter_current(march, h_low, h_inlet, coarse=None) -> MarchOutcome:
     """Shoot on the counter-current heating medium's outlet state at z = 0.
 
     ``march(h_start)`` marches the whole path from a heating-medium enthalpy at
@@ -949,7 +947,17 @@ def solve_counter_current(march, h_low, h_inlet) -> MarchOutcome:
     It is converged on the residual itself, to a millionth of the duty per unit
     heating flow: with a small heating flow against a large area the residual
     changes steeply with the start, and a tolerance on the start would not do.
+
+    With ``coarse`` (the same march with fewer increments) the shooting is first
+    solved with it; the full march then starts from that answer, with the coarse
+    residual's slope for its first step, and secant steps follow to the same
+    tolerance: two or three full marches where the bracketed shooting takes six. If
+    that does not converge within a few marches, the full shooting follows.
     """
+    if coarse is not None:
+        out = _shoot_from_coarse(march, coarse, h_low, h_inlet)
+        if out is not None:
+            return out
     span = abs(h_inlet - h_low)
     seen: dict[float, MarchOutcome] = {}
     scale = {"r": span}
@@ -999,3 +1007,46 @@ def solve_counter_current(march, h_low, h_inlet) -> MarchOutcome:
     if out.status != "ok":  # the root sits where the medium leaves its data
         out.message = "no counter-current solution within the heating medium's data: " + out.message
     return out
+
+
+#: Full marches tried from the coarse shooting's answer before the full shooting.
+_FROM_COARSE_MARCHES = 4
+
+
+def _shoot_from_coarse(march, coarse, h_low, h_inlet):
+    """``solve_counter_current`` with the coarse march, then secant steps of the full one.
+
+    Returns None where the full march does not converge within _FROM_COARSE_MARCHES.
+    """
+    trials = []
+
+    def recorded(h_start):
+        out = coarse(h_start)
+        if out.end_heating_state is not None:   # a failed trial's end counts as there
+            trials.append((h_start, out.end_heating_state - h_inlet))
+        return out
+
+    first = solve_counter_current(recorded, h_low, h_inlet)
+    if first.status != "ok" or len(trials) < 2 or trials[0][0] != h_inlet:
+        return None
+    tol = 1e-6 * trials[0][1]       # the tolerance of the full shooting, on its scale
+    h = first.start_heating_state
+    near = sorted(trials, key=lambda t: abs(t[0] - h))[:2]
+    if near[0][0] == near[1][0]:
+        return None
+    slope = (near[0][1] - near[1][1]) / (near[0][0] - near[1][0])
+    previous = None
+    for _ in range(_FROM_COARSE_MARCHES):
+        out = march(h)
+        if out.status != "ok":
+            return None
+        r = out.end_heating_state - h_inlet
+        if abs(r) <= tol:
+            return out
+        if previous is not None and previous[1] != r:
+            slope = (previous[1] - r) / (previous[0] - h)
+        if not slope > 0.0:
+            return None
+        previous = (h, r)
+        h = min(max(h - r / slope, h_low), h_inlet)
+    return None

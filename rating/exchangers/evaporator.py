@@ -39,6 +39,10 @@ DEFAULT_INCREMENTS = 40
 #: increments would move that area by 0.2 %).
 FILM_PROFILE_INCREMENTS = 20
 
+#: Increments of the counter-current shooting's first, coarse trials (as the
+#: thermosiphon's scan); the full count then finishes from their answer.
+SHOOTING_INCREMENTS = 10
+
 #: How far past the real tube the area-for-duty march may go, in tube lengths.
 DUTY_CHECK_LENGTH_FACTOR = 10.0
 
@@ -208,10 +212,11 @@ def rate_evaporator(case, *, increments=None, progress=None, cancel=None) -> Res
     local_condensation = isinstance(heating, SteamHeating) and tube.vertical \
         and case.tubes.passes == 1
 
-    def march(hs_start, *, stop_duty=None, share=(0.0, 1.0)):
+    def march(hs_start, *, stop_duty=None, share=(0.0, 1.0), increments=None):
         max_len = path * DUTY_CHECK_LENGTH_FACTOR if stop_duty is not None else None
         if not local_condensation:
-            m = Marcher(tube, heating, path, n, progress=prog.part(*share), cancel=cancel)
+            m = Marcher(tube, heating, path, increments or n, progress=prog.part(*share),
+                        cancel=cancel)
             return m.run(P0, h0, hs_start, stop_duty=stop_duty, max_length=max_len)
         # Vertical tubes on steam: a first march with Nusselt's mean coefficient gives
         # the condensate film along the tube; the second uses the local film law.
@@ -270,11 +275,13 @@ def _shoot_counter_current(case, fluid, heating, hs_inlet, march, P0):
     h_low = heating.fluid.enthalpy(case.heating.pressure, T_cold)
     calls = [0]
 
-    def one(h_start):
+    def one(h_start, increments=None):
         calls[0] += 1
-        return march(h_start, share=(min(0.9, 0.08 * calls[0]), 0.08))
+        return march(h_start, share=(min(0.9, 0.08 * calls[0]), 0.08), increments=increments)
 
-    return solve_counter_current(one, h_low, hs_inlet)
+    # the shooting first with SHOOTING_INCREMENTS, then finished with the full count
+    return solve_counter_current(one, h_low, hs_inlet,
+                                 coarse=lambda h_start: one(h_start, SHOOTING_INCREMENTS))
 
 
 def _area_for_duty(case, heating, hs_inlet, march):
