@@ -21,12 +21,13 @@ least 8 times faster than the reference march; every thermosiphon sample under
 (medians). The machine is shared: the load average is printed before and after,
 and the minima are the figures least disturbed by other work.
 
-    python benchmarks/bench_speed.py [--repeat N] [--fresh N] [--skip-fresh]
+    python benchmarks/bench_speed.py [--repeat N] [--fresh N] [--skip-fresh | --only-fresh]
 """
 from __future__ import annotations
 
 import argparse
 import os
+import resource
 import statistics
 import subprocess
 import sys
@@ -154,14 +155,18 @@ def samples(repeat):
 
 
 def _fresh(code, runs):
-    """Median wall time [ms] of fresh interpreters running ``code`` (from the project root)."""
-    times = []
+    """Wall and CPU times [ms] of fresh interpreters running ``code`` (from the project
+    root): (median wall, smallest wall, median CPU of the child, user + system)."""
+    times, cpu = [], []
     for _ in range(runs):
+        before = resource.getrusage(resource.RUSAGE_CHILDREN)
         t0 = time.perf_counter()
         subprocess.run([sys.executable, "-c", code], cwd=ROOT, check=True,
                        stdout=subprocess.DEVNULL)
         times.append(time.perf_counter() - t0)
-    return 1e3 * statistics.median(times), 1e3 * min(times)
+        after = resource.getrusage(resource.RUSAGE_CHILDREN)
+        cpu.append(after.ru_utime - before.ru_utime + after.ru_stime - before.ru_stime)
+    return 1e3 * statistics.median(times), 1e3 * min(times), 1e3 * statistics.median(cpu)
 
 
 def fresh(runs):
@@ -176,11 +181,11 @@ def fresh(runs):
         ("ebullio-rate pentane sample (CLI)", "import sys; from rating.cli import main; "
          "sys.argv = ['ebullio-rate', 'samples/pentane-vaporiser.ebullio']; main()"),
     ]
-    print(f"4. Fresh process, wall time of the whole interpreter, median of {runs} "
-          "(min in brackets)")
+    print(f"4. Fresh process, the whole interpreter: wall time, median of {runs} (min in "
+          "brackets), and the child's CPU time (median)")
     for label, code in rows:
-        med, low = _fresh(code, runs)
-        print(f"   {label:<42} {med:>8.0f} ms ({low:.0f})")
+        med, low, cpu = _fresh(code, runs)
+        print(f"   {label:<42} {med:>8.0f} ms ({low:.0f})   CPU {cpu:>6.0f} ms")
 
 
 def main(argv=None):
@@ -188,14 +193,16 @@ def main(argv=None):
     p.add_argument("--repeat", type=int, default=15)
     p.add_argument("--fresh", type=int, default=5)
     p.add_argument("--skip-fresh", action="store_true")
+    p.add_argument("--only-fresh", action="store_true")
     args = p.parse_args(argv)
     import CoolProp
     print(f"load average before: {' '.join(f'{v:.2f}' for v in os.getloadavg())}  "
           f"({os.cpu_count()} cores); CoolProp {CoolProp.__version__}, Python "
           f"{sys.version.split()[0]}")
     make_fluid("Water")
-    side_by_side(args.repeat)
-    samples(args.repeat)
+    if not args.only_fresh:
+        side_by_side(args.repeat)
+        samples(args.repeat)
     if not args.skip_fresh:
         fresh(args.fresh)
     print(f"load average after: {' '.join(f'{v:.2f}' for v in os.getloadavg())}")

@@ -936,7 +936,7 @@ class _MarchFailed(Exception):
         self.outcome = outcome
 
 
-def solve_counter_current(march, h_low, h_inlet, coarse=None) -> MarchOutcome:
+def solve_counter_current(march, h_low, h_inlet, coarse=None, rtol=1e-6) -> MarchOutcome:
     """Shoot on the counter-current heating medium's outlet state at z = 0.
 
     ``march(h_start)`` marches the whole path from a heating-medium enthalpy at
@@ -944,8 +944,8 @@ def solve_counter_current(march, h_low, h_inlet, coarse=None) -> MarchOutcome:
     medium arrives at z = L with its given inlet enthalpy ``h_inlet``. The root is
     bracketed between ``h_low`` (the medium cooled to the boiling inlet
     temperature) and ``h_inlet`` (no heat given up), where the residual changes sign.
-    It is converged on the residual itself, to a millionth of the duty per unit
-    heating flow: with a small heating flow against a large area the residual
+    It is converged on the residual itself, to ``rtol`` (a millionth) of the duty per
+    unit heating flow: with a small heating flow against a large area the residual
     changes steeply with the start, and a tolerance on the start would not do.
 
     With ``coarse`` (the same march with fewer increments) the shooting is first
@@ -977,7 +977,7 @@ def solve_counter_current(march, h_low, h_inlet, coarse=None) -> MarchOutcome:
                 return end - h_inlet
             raise _MarchFailed(out)
         r = out.end_heating_state - h_inlet
-        if abs(r) <= 1e-6 * scale["r"]:
+        if abs(r) <= rtol * scale["r"]:
             raise _Converged(h_start)
         return r
 
@@ -1009,6 +1009,8 @@ def solve_counter_current(march, h_low, h_inlet, coarse=None) -> MarchOutcome:
     return out
 
 
+#: Tolerance of the coarse shooting (its own answer is 1e-4 to 1e-3 from the full one's).
+_COARSE_RTOL = 1e-4
 #: Full marches tried from the coarse shooting's answer before the full shooting.
 _FROM_COARSE_MARCHES = 4
 
@@ -1026,7 +1028,8 @@ def _shoot_from_coarse(march, coarse, h_low, h_inlet):
             trials.append((h_start, out.end_heating_state - h_inlet))
         return out
 
-    first = solve_counter_current(recorded, h_low, h_inlet)
+    # the coarse answer only starts the full march: a looser tolerance will do
+    first = solve_counter_current(recorded, h_low, h_inlet, rtol=_COARSE_RTOL)
     if first.status != "ok" or len(trials) < 2 or trials[0][0] != h_inlet:
         return None
     tol = 1e-6 * trials[0][1]       # the tolerance of the full shooting, on its scale
