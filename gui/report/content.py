@@ -191,8 +191,8 @@ def _key_figures(case, result, units: str) -> Table:
     body = ["".join(f"<td>{esc(a)}</td><td class=\"num\">{esc(b)}</td><td>{esc(c)}</td>"
                     for a, b, c in (left, right))
             for left, right in zip(rows[:half], rows[half:] + [("", "", "")])]
-    return Table('<th width="27%">Figure</th><th width="13%">Value</th><th width="10%">Unit</th>'
-                 '<th width="27%">Figure</th><th width="13%">Value</th><th width="10%">Unit</th>',
+    return Table('<th width="25%">Figure</th><th width="15%">Value</th><th width="10%">Unit</th>'
+                 '<th width="25%">Figure</th><th width="15%">Value</th><th width="10%">Unit</th>',
                  body)
 
 

@@ -218,7 +218,7 @@ def kettle_figure(case, result, units: str) -> Figure | None:
     s = result.summary
     if k is None:
         return None
-    fig = _figure(4.2, bottom=1.2, wspace=0.3)
+    fig = _figure(4.0, bottom=1.0, wspace=0.3)
     left, right = fig.subplots(1, 2, width_ratios=(1, 1.5))
     length = lambda v: to_display(v, "length", units)
     r_kettle = length(k.kettle_diameter) / 2

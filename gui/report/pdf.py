@@ -40,8 +40,9 @@ def report_font(points: float):
 
     font = QFont("DejaVu Sans")
     font.setPointSizeF(points)
-    font.setFeature(QFont.Tag("liga"), 0)
-    font.setFeature(QFont.Tag("clig"), 0)
+    if hasattr(font, "setFeature"):          # Qt 6.7 and later
+        font.setFeature(QFont.Tag("liga"), 0)
+        font.setFeature(QFont.Tag("clig"), 0)
     return font
 
 
@@ -117,6 +118,9 @@ def _first_cut(doc, report):
         if (level in (2, 3) or is_figure) and QTextCursor(block).currentTable() is None:
             rect = layout.blockBoundingRect(block)
             end = rect.bottom() + (KEEP_WITH_NEXT if level else -0.5)
+            after = block.next()
+            if level and after.isValid() and "\ufffc" in after.text():
+                end = layout.blockBoundingRect(after).bottom()    # a heading goes with its figure
             if page(rect.top()) != page(end) and rect.top() % height > 1.0:
                 cuts.append((rect.top(), ("keep", keep)))
             keep += 1
