@@ -186,13 +186,14 @@ def _key_figures(case, result, units: str) -> Table:
             text = "no dryout" if case.type != "kettle" else "not applicable"
         else:
             text = _num(value, quantity, units)
-        rows.append((label, text, _unit(quantity, units)))
+        numeric = isinstance(value, (int, float)) and not isinstance(value, bool)
+        rows.append((label, text, _unit(quantity, units) if numeric else ""))
     half = (len(rows) + 1) // 2
     body = ["".join(f"<td>{esc(a)}</td><td class=\"num\">{esc(b)}</td><td>{esc(c)}</td>"
                     for a, b, c in (left, right))
             for left, right in zip(rows[:half], rows[half:] + [("", "", "")])]
-    return Table('<th width="25%">Figure</th><th width="15%">Value</th><th width="10%">Unit</th>'
-                 '<th width="25%">Figure</th><th width="15%">Value</th><th width="10%">Unit</th>',
+    return Table('<th width="22%">Figure</th><th width="14%">Value</th><th width="14%">Unit</th>'
+                 '<th width="22%">Figure</th><th width="14%">Value</th><th width="14%">Unit</th>',
                  body)
 
 

@@ -1,0 +1,140 @@
+"""The report's and the vendor figures' commands in the desktop's Report menu.
+
+The main window calls ``add_to_window(window)`` when it builds its menus. The
+commands use only what the window shows: its document (``doc``: the cases as
+drafts, the project's path), the runner's last results (``runner.state(id)``), the
+current case (``current_id``) and the unit system (``system``). A vendor's figures
+are edited in the case's own form (the catalogue's "vendor" group, shown once the
+case has them); the comparison opens in a window of its own.
+"""
+from __future__ import annotations
+
+from pathlib import Path
+
+from rating import catalogue
+from rating.vendor import compare, describe, deviation_text
+
+
+def add_to_window(window) -> None:
+    menu = window.report_menu
+    menu.addAction("Write a report of this &case…", lambda: write_from_window(window, False))
+    menu.addAction("Write a report of &every case…", lambda: write_from_window(window, True))
+    menu.addSeparator()
+    menu.addAction("Add &vendor figures to this case", lambda: add_vendor_figures(window))
+    menu.addAction("Vendor figures against the &rating…", lambda: show_comparison(window))
+
+
+def _entry(window):
+    entry_id = getattr(window, "current_id", None)
+    return None if entry_id is None else window.doc.entry(entry_id)
+
+
+def add_vendor_figures(window) -> None:
+    """Give the current case an empty proposal, so that its form shows the vendor group."""
+    entry = _entry(window)
+    if entry is not None and not isinstance(entry.draft.get("vendor"), dict):
+        window.doc.set_value(entry.id, "vendor", {"source": "Vendor proposal"})
+
+
+def _case_and_result(window, entry):
+    """The validated case and its current (not stale) result, rating it now if needed."""
+    import rating
+
+    case = catalogue.draft_to_case(entry.draft)
+    state = window.runner.state(entry.id)
+    result = state.result if state.result is not None and not state.stale else None
+    return case, result or rating.rate(case)
+
+
+def write_from_window(window, every: bool) -> Path | None:
+    from PySide6.QtCore import Qt
+    from PySide6.QtWidgets import QApplication, QFileDialog, QMessageBox
+
+    from rating.errors import InputError
+
+    from .writer import write_report
+
+    entries = list(window.doc.entries) if every else [e for e in [_entry(window)] if e]
+    if not entries:
+        return None
+    folder = window.doc.path.parent if window.doc.path else Path.home()
+    stem = window.doc.path.stem if window.doc.path and every else entries[0].name
+    path, _ = QFileDialog.getSaveFileName(window, "Write a rating report",
+                                          str(folder / f"{stem}.pdf"),
+                                          "PDF document (*.pdf);;HTML page (*.html)")
+    if not path:
+        return None
+    QApplication.setOverrideCursor(Qt.CursorShape.WaitCursor)
+    try:
+        pairs = [_case_and_result(window, e) for e in entries]
+        project = window.doc.to_project()
+        # The file's hash names the inputs only when the window shows what is saved.
+        source = window.doc.path if window.doc.path and not window.doc.dirty else None
+        write_report(project, [c for c, _ in pairs], path, window.system, source,
+                     results=[r for _, r in pairs])
+    except (InputError, OSError, ValueError) as exc:
+        QMessageBox.warning(window, "Report not written", str(exc))
+        return None
+    finally:
+        QApplication.restoreOverrideCursor()
+    return Path(path)
+
+
+def comparison_rows(comparison, system: str) -> list[tuple[str, ...]]:
+    """(figure, vendor, Ebullio, deviation, tolerance, verdict) in the window's units."""
+    from gui.units import format_value
+
+    rows = []
+    for r in comparison.rows:
+        quantity = catalogue.input_field(f"vendor.{r.figure}").quantity
+        band = {"%": " %", "points": " points", "-": ""}[r.deviation_unit]
+        rows.append((catalogue.vendor_label(r.figure), format_value(r.vendor, quantity, system),
+                     format_value(r.ebullio, quantity, system), deviation_text(r),
+                     f"±{r.tolerance:g}{band}", r.verdict + (f" ({r.note})" if r.note else "")))
+    return rows
+
+
+def show_comparison(window):
+    """A window with the current case's vendor figures beside the rating."""
+    from PySide6.QtCore import Qt
+    from PySide6.QtWidgets import (QDialog, QDialogButtonBox, QLabel, QTableWidget,
+                                   QTableWidgetItem, QVBoxLayout)
+
+    entry = _entry(window)
+    if entry is None:
+        return None
+    dialog = QDialog(window)
+    dialog.setWindowTitle(f"Vendor figures against the rating: {entry.name}")
+    lay = QVBoxLayout(dialog)
+    try:
+        case, result = _case_and_result(window, entry)
+        comparison = compare(case, result)
+    except Exception as exc:  # noqa: BLE001 - an invalid draft: say so in the window
+        comparison, message = None, f"The case cannot be rated as it stands: {exc}"
+    else:
+        message = (describe(comparison) if comparison is not None else
+                   "This case has no vendor figures (Report > Add vendor figures to this case).")
+    verdict = QLabel(message)
+    verdict.setWordWrap(True)
+    lay.addWidget(verdict)
+    if comparison is not None:
+        heads = ("Figure", "Vendor", "Ebullio", "Deviation", "Tolerance", "Verdict")
+        rows = comparison_rows(comparison, window.system)
+        table = QTableWidget(len(rows), len(heads), dialog)
+        table.setHorizontalHeaderLabels(heads)
+        for i, row in enumerate(rows):
+            for j, text in enumerate(row):
+                item = QTableWidgetItem(text)
+                if j in (1, 2, 3, 4):
+                    item.setTextAlignment(Qt.AlignmentFlag.AlignRight
+                                          | Qt.AlignmentFlag.AlignVCenter)
+                table.setItem(i, j, item)
+        table.resizeColumnsToContents()
+        table.horizontalHeader().setStretchLastSection(True)
+        lay.addWidget(table)
+    buttons = QDialogButtonBox(QDialogButtonBox.StandardButton.Close, dialog)
+    buttons.rejected.connect(dialog.reject)
+    lay.addWidget(buttons)
+    dialog.resize(820, 420)
+    dialog.show()
+    return dialog
