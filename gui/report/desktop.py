@@ -73,7 +73,11 @@ def write_from_window(window, every: bool) -> Path | None:
         write_report(project, [c for c, _ in pairs], path, window.system, source,
                      results=[r for _, r in pairs])
     except (InputError, OSError, ValueError) as exc:
-        QMessageBox.warning(window, "Report not written", str(exc))
+        show = getattr(window, "show_error", None)   # the window's own way to say it
+        if show is not None:
+            show("Report not written", str(exc))
+        else:
+            QMessageBox.warning(window, "Report not written", str(exc))
         return None
     finally:
         QApplication.restoreOverrideCursor()

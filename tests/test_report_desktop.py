@@ -1,0 +1,58 @@
+"""The Report menu of the desktop: vendor figures edited in the case's form, the comparison
+window, and a report written from the window (read back with pypdf)."""
+from __future__ import annotations
+
+import pypdf
+import pytest
+
+from gui_helpers import RATING_TIMEOUT_MS, open_rated, scratch, set_text, window  # noqa: F401
+
+
+def _action(w, words):
+    for a in w.report_menu.actions():
+        if words in a.text().replace("&", ""):
+            return a
+    raise AssertionError(f"no Report menu command with {words!r}: "
+                         f"{[a.text() for a in w.report_menu.actions()]}")
+
+
+def test_vendor_figures_are_edited_in_the_form_and_compared(window, qtbot):
+    w = window
+    st = open_rated(qtbot, w)
+    u_service = st.result.summary["u_service_W_m2K"]
+    form = w.current_form()
+    _action(w, "Add vendor figures").trigger()
+    assert isinstance(w.doc.entry(w.current_id).draft.get("vendor"), dict)
+    form = w.current_form()
+    with qtbot.waitSignal(w.runner.resultArrived, timeout=RATING_TIMEOUT_MS):
+        set_text(qtbot, w, "vendor.u_service", f"{1.5 * u_service:.0f}")
+        form.editor("vendor.u_service").editingFinished.emit()
+    assert w.doc.entry(w.current_id).draft["vendor"]["u_service"] == pytest.approx(
+        1.5 * u_service, abs=1.0)
+    from gui.report.desktop import show_comparison
+
+    dialog = show_comparison(w)
+    qtbot.addWidget(dialog)
+    from PySide6.QtWidgets import QLabel, QTableWidget
+
+    table = dialog.findChild(QTableWidget)
+    words = dialog.findChild(QLabel).text()
+    assert words.startswith("Optimistic") and "U service" in words
+    assert table.rowCount() == 1 and table.item(0, 0).text() == "U service"
+    assert table.item(0, 5).text() == "optimistic" and table.item(0, 3).text() == "+50.0 %"
+
+
+def test_a_report_is_written_from_the_window(window, qtbot, tmp_path, monkeypatch):
+    from PySide6.QtWidgets import QFileDialog
+
+    w = window
+    open_rated(qtbot, w)
+    target = tmp_path / "from-the-window.pdf"
+    monkeypatch.setattr(QFileDialog, "getSaveFileName",
+                        staticmethod(lambda *a, **k: (str(target), "PDF document (*.pdf)")))
+    _action(w, "report of this case").trigger()
+    assert target.exists() and not w.errors
+    text = " ".join(" ".join(p.extract_text().split()) for p in pypdf.PdfReader(target).pages)
+    name = w.doc.entry(w.current_id).name
+    assert name in text and "qualified engineer" in text
+    assert f"Page 1 of {len(pypdf.PdfReader(target).pages)}" in text
