@@ -1,6 +1,6 @@
 """Time the rating report of every sample: figures, HTML, PDF (the rating itself apart).
 
-    python benchmarks/bench_report.py [--repeat N] [--units SI|metric|US]
+    python benchmarks/bench_report.py [--repeat N] [--units SI|metric|US] [FILE ...]
 
 For each sample project the cases are rated once (timed apart), then the report of
 every case is written as PDF and as HTML ``--repeat`` times into a temporary folder;
@@ -34,8 +34,9 @@ def main(argv=None) -> int:
     ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     ap.add_argument("--repeat", type=int, default=2)
     ap.add_argument("--units", default="SI")
+    ap.add_argument("files", nargs="*", type=Path)
     args = ap.parse_args(argv)
-    samples = sorted((ROOT / "samples").glob("*.ebullio"))
+    samples = args.files or sorted((ROOT / "samples").glob("*.ebullio"))
     _, wall, cpu = timed(lambda: __import__("gui.report", fromlist=["write_report"]))
     print(f"import of the report writer (Qt, matplotlib): {wall:.2f} s wall, {cpu:.2f} s cpu")
     from gui.report import write_report

@@ -252,12 +252,12 @@ def _vendor_fields():
                    types=types, hard_open=_OPEN_LO if name in _OPEN else (False, False))
             for name, label, quantity, hard, usual, types, help in _VENDOR]
     for name, label, quantity, _hard, _usual, types, _help in _VENDOR:
-        unit_word = {"over_design": "percentage points", "exit_quality": "absolute"}.get(
-            name, "% of Ebullio's value")
-        out.append(_field(f"vendor.tolerances.{name}", f"Tolerance on {label[0].lower()}"
-                          f"{label[1:]} ({unit_word})",
+        unit_word = {"over_design": " (points)", "exit_quality": " (absolute)"}.get(name, "")
+        out.append(_field(f"vendor.tolerances.{name}", f"{label}: tolerance{unit_word}",
                           "fraction" if name == "exit_quality" else "percent", "vendor",
-                          TOLERANCE_BASIS[name], types=types, hard_open=_OPEN_LO,
+                          ("In percent of Ebullio's value. " if name not in
+                           ("over_design", "exit_quality") else "") + TOLERANCE_BASIS[name],
+                          types=types, hard_open=_OPEN_LO,
                           hard=(0.0, 1.0) if name == "exit_quality" else (0.0, 100.0)))
     return out
 

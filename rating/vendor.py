@@ -304,4 +304,6 @@ def deviation_text(r: ComparedFigure) -> str:
     if r.deviation is None:
         return "not comparable"
     unit = {"%": " %", "points": " points", "-": ""}[r.deviation_unit]
-    return f"{r.deviation:+.1f}{unit}" if r.deviation_unit != "-" else f"{r.deviation:+.3f}"
+    places = 3 if r.deviation_unit == "-" else 1
+    shown = round(r.deviation, places) + 0.0          # no "-0.000" for a deviation that rounds to 0
+    return f"{shown:+.{places}f}{unit}"

@@ -376,9 +376,14 @@ def build(project, cases, results, units: str, source_path=None, when=None) -> R
         rep.add(_methods(result))
     # --- provenance
     rep.add(f"<h1{BREAK}>Provenance</h1>")
+    items = provenance(project, source_path, units, when)
+    for case, result in zip(cases, results):      # what the engine records of each rating
+        extra = getattr(result, "provenance", None)
+        if isinstance(extra, dict):
+            items += [(f"{case.name}: {key.replace('_', ' ')}", str(value))
+                      for key, value in extra.items()]
     rep.add(Table('<th width="30%">Item</th><th>Value</th>',
-                  [f"<td>{esc(item)}</td><td>{esc(value)}</td>"
-                   for item, value in provenance(project, source_path, units, when)]))
+                  [f"<td>{esc(item)}</td><td>{esc(value)}</td>" for item, value in items]))
     rep.add(f'<p class="small"><b>Caution.</b> {esc(CAUTION)}</p>')
     rep.add("</body></html>")
     return rep

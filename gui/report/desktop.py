@@ -15,6 +15,10 @@ from rating import catalogue
 from rating.vendor import compare, describe, deviation_text
 
 
+#: Colours of the flagged verdicts (the report's: dark orange and dark blue).
+VERDICT_COLOURS = {"optimistic": "#a03800", "conservative": "#005a8c"}
+
+
 def add_to_window(window) -> None:
     menu = window.report_menu
     menu.addAction("Write a report of this &case…", lambda: write_from_window(window, False))
@@ -85,22 +89,23 @@ def write_from_window(window, every: bool) -> Path | None:
 
 
 def comparison_rows(comparison, system: str) -> list[tuple[str, ...]]:
-    """(figure, vendor, Ebullio, deviation, tolerance, verdict) in the window's units."""
+    """(figure, vendor, Ebullio, deviation, tolerance, verdict, note) in the window's units."""
     from gui.units import format_value
 
     rows = []
     for r in comparison.rows:
         quantity = catalogue.input_field(f"vendor.{r.figure}").quantity
         band = {"%": " %", "points": " points", "-": ""}[r.deviation_unit]
-        rows.append((catalogue.vendor_label(r.figure), format_value(r.vendor, quantity, system),
-                     format_value(r.ebullio, quantity, system), deviation_text(r),
-                     f"±{r.tolerance:g}{band}", r.verdict + (f" ({r.note})" if r.note else "")))
+        shown = [format_value(v, quantity, system).removesuffix(" –") for v in (r.vendor, r.ebullio)]
+        rows.append((catalogue.vendor_label(r.figure), *shown, deviation_text(r),
+                     f"±{r.tolerance:g}{band}", r.verdict, r.note))
     return rows
 
 
 def show_comparison(window):
     """A window with the current case's vendor figures beside the rating."""
     from PySide6.QtCore import Qt
+    from PySide6.QtGui import QColor
     from PySide6.QtWidgets import (QDialog, QDialogButtonBox, QLabel, QTableWidget,
                                    QTableWidgetItem, QVBoxLayout)
 
@@ -126,19 +131,29 @@ def show_comparison(window):
         rows = comparison_rows(comparison, window.system)
         table = QTableWidget(len(rows), len(heads), dialog)
         table.setHorizontalHeaderLabels(heads)
-        for i, row in enumerate(rows):
-            for j, text in enumerate(row):
+        table.verticalHeader().setVisible(False)
+        for i, (*cells, note) in enumerate(rows):
+            for j, text in enumerate(cells):
                 item = QTableWidgetItem(text)
                 if j in (1, 2, 3, 4):
                     item.setTextAlignment(Qt.AlignmentFlag.AlignRight
                                           | Qt.AlignmentFlag.AlignVCenter)
+                if note:
+                    item.setToolTip(note)     # why Ebullio's value is what it is
+                if j == 5 and text in VERDICT_COLOURS:
+                    item.setForeground(QColor(VERDICT_COLOURS[text]))
                 table.setItem(i, j, item)
         table.resizeColumnsToContents()
         table.horizontalHeader().setStretchLastSection(True)
         lay.addWidget(table)
+        notes = [f"{label}: {note}" for label, *_, note in rows if note]
+        if notes:
+            why = QLabel("\n".join(notes))
+            why.setWordWrap(True)
+            lay.addWidget(why)
     buttons = QDialogButtonBox(QDialogButtonBox.StandardButton.Close, dialog)
     buttons.rejected.connect(dialog.reject)
     lay.addWidget(buttons)
-    dialog.resize(820, 420)
+    dialog.resize(860, 520)
     dialog.show()
     return dialog

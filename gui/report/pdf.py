@@ -61,8 +61,8 @@ def document(report):
     breaks = set()
     for _ in range(MAX_ROUNDS):
         doc = _laid_out(report.render(breaks), images)
-        cut = _first_cut(doc, report)
-        if cut is None or cut in breaks:
+        cut = _first_cut(doc, report, breaks)
+        if cut is None:
             break
         breaks.add(cut)
     return doc
@@ -83,9 +83,9 @@ def _laid_out(text: str, images: dict):
     return doc
 
 
-def _first_cut(doc, report):
+def _first_cut(doc, report, done=frozenset()):
     """The first place (in reading order) a page end cuts: ("row", piece, row) or
-    ("keep", n), or None."""
+    ("keep", n), or None. Places in ``done`` already start a page: nothing more to do."""
     from PySide6.QtGui import QTextCursor, QTextTable
 
     layout = doc.documentLayout()
@@ -107,7 +107,8 @@ def _first_cut(doc, report):
             top = min(rect.top() for rect in rects)
             bottom = max(rect.bottom() for rect in rects)
             row = first + r - header
-            if page(top) != page(bottom - 0.5) and row > first:
+            if page(top) != page(bottom - 0.5) and row > first \
+                    and ("row", piece, row) not in done:
                 cuts.append((top, ("row", piece, row)))
                 break
     keep = 0
@@ -121,7 +122,7 @@ def _first_cut(doc, report):
             after = block.next()
             if level and after.isValid() and "\ufffc" in after.text():
                 end = layout.blockBoundingRect(after).bottom()    # a heading goes with its figure
-            if page(rect.top()) != page(end) and rect.top() % height > 1.0:
+            if page(rect.top()) != page(end) and ("keep", keep) not in done:
                 cuts.append((rect.top(), ("keep", keep)))
             keep += 1
         block = block.next()
