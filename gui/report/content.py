@@ -317,6 +317,12 @@ def provenance(project, source_path, units: str, when: _dt.datetime) -> list[tup
     return rows
 
 
+#: The engine's provenance of a result: the words the report gives each item; the
+#: versions are the report's own rows and the methods have their own table.
+_PROVENANCE = {"case_sha256": "inputs SHA-256 (the case as rated)", "rated_at": "rated at"}
+_SHOWN_ELSEWHERE = {"ebullio_version", "coolprop_version", "methods"}
+
+
 def build(project, cases, results, units: str, source_path=None, when=None) -> Report:
     """The report of ``cases`` (rated as ``results``) in the unit system ``units``."""
     when = when or _dt.datetime.now(_dt.timezone.utc)
@@ -380,8 +386,9 @@ def build(project, cases, results, units: str, source_path=None, when=None) -> R
     for case, result in zip(cases, results):      # what the engine records of each rating
         extra = getattr(result, "provenance", None)
         if isinstance(extra, dict):
-            items += [(f"{case.name}: {key.replace('_', ' ')}", str(value))
-                      for key, value in extra.items()]
+            items += [(f"{case.name}: {_PROVENANCE.get(key, key.replace('_', ' '))}",
+                       ", ".join(map(str, value)) if isinstance(value, (list, tuple)) else str(value))
+                      for key, value in extra.items() if key not in _SHOWN_ELSEWHERE]
     rep.add(Table('<th width="30%">Item</th><th>Value</th>',
                   [f"<td>{esc(item)}</td><td>{esc(value)}</td>" for item, value in items]))
     rep.add(f'<p class="small"><b>Caution.</b> {esc(CAUTION)}</p>')
