@@ -51,8 +51,10 @@ def window(qtbot, scratch):
 
 
 def open_rated(qtbot, w, path=QUICK):
-    """Open a project and wait until its first case is rated."""
-    with qtbot.waitSignal(w.runner.resultArrived, timeout=RATING_TIMEOUT_MS):
+    """Open a project and wait until its first case is rated (the other cases are rated
+    on open too: only the result of the case on screen counts)."""
+    with qtbot.waitSignal(w.runner.resultArrived, timeout=RATING_TIMEOUT_MS,
+                          check_params_cb=lambda i: i == w.current_id):
         assert w.open_path(path)
     st = w.runner.state(w.current_id)
     assert st.result is not None, st.message

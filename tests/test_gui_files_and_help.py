@@ -69,7 +69,8 @@ def test_the_rating_before_the_last_edit_is_overlaid_and_its_differences_listed(
 
     w = window
     before = open_rated(qtbot, w).result
-    with qtbot.waitSignal(w.runner.resultArrived, timeout=RATING_TIMEOUT_MS):
+    with qtbot.waitSignal(w.runner.resultArrived, timeout=RATING_TIMEOUT_MS,
+                          check_params_cb=lambda i: i == w.current_id):
         set_text(qtbot, w, "boiling.mass_flow", "4")
     after = w.runner.state(w.current_id).result
     assert w.runner.state(w.current_id).previous is before
@@ -144,7 +145,8 @@ def test_a_failed_rating_says_why_and_keeps_the_last_good_result_stale(window, q
     w = window
     good = open_rated(qtbot, w, SAMPLES / "stripper-reboiler.ebullio").result
     eid = w.current_id
-    with qtbot.waitSignal(w.runner.resultArrived, timeout=RATING_TIMEOUT_MS):
+    with qtbot.waitSignal(w.runner.resultArrived, timeout=RATING_TIMEOUT_MS,
+                          check_params_cb=lambda i: i == w.current_id):
         set_text(qtbot, w, "thermosiphon.liquid_level", "0.2")
     st = w.runner.state(eid)
     assert st.status == "failed"

@@ -25,7 +25,8 @@ def test_edit_rerates_and_the_verdict_and_a_plotted_line_follow(window, qtbot):
     before = open_rated(qtbot, w).result
     verdict_before = w.verdict.text()
     x0, y0 = w.along.line_data("t_wall_inner_K")
-    with qtbot.waitSignal(w.runner.resultArrived, timeout=RATING_TIMEOUT_MS):
+    with qtbot.waitSignal(w.runner.resultArrived, timeout=RATING_TIMEOUT_MS,
+                          check_params_cb=lambda i: i == w.current_id):
         set_text(qtbot, w, "boiling.mass_flow", "3")
     after = w.runner.state(w.current_id).result
     assert after is not before and not w.runner.state(w.current_id).stale

@@ -24,7 +24,8 @@ def test_vendor_figures_are_edited_in_the_form_and_compared(window, qtbot):
     _action(w, "Add vendor figures").trigger()
     assert isinstance(w.doc.entry(w.current_id).draft.get("vendor"), dict)
     form = w.current_form()
-    with qtbot.waitSignal(w.runner.resultArrived, timeout=RATING_TIMEOUT_MS):
+    with qtbot.waitSignal(w.runner.resultArrived, timeout=RATING_TIMEOUT_MS,
+                          check_params_cb=lambda i: i == w.current_id):
         set_text(qtbot, w, "vendor.u_service", f"{1.5 * u_service:.0f}")
         form.editor("vendor.u_service").editingFinished.emit()
     assert w.doc.entry(w.current_id).draft["vendor"]["u_service"] == pytest.approx(
