@@ -6,10 +6,8 @@ can show where a number comes from. Warning codes are Ebullio's own.
 """
 from __future__ import annotations
 
-import math
-
 from .correlations import registry
-from .correlations.pool_boiling import nucleate_fluid_constants
+from .correlations.pool_boiling import lienhard_dhir_1973, nucleate_fluid_constants
 from .march import WETTED_REGIMES
 from .results import RatingWarning
 
@@ -94,19 +92,15 @@ LIMIT_SOURCES = {
                                    "at their boiling point"),
 }
 
-# Pool critical heat flux used for the critical wall superheat: Lienhard & Dhir (1973).
-_POOL_CHF_K = 0.149
-
 
 def critical_superheat(sat, nucleate_method: str, fluid=None) -> float:
     """Wall superheat at which nucleate pool boiling reaches the pool critical heat flux [K].
 
-    q_max from Zuber's hydrodynamic form with Lienhard & Dhir's constant 0.149;
-    the superheat is q_max / htc_nb(q_max) with the chosen nucleate method. Beyond it
-    the boiling curve turns towards transition and film boiling.
+    q_max from Lienhard & Dhir's large-surface form (the pool_chf family's
+    ``lienhard_dhir_1973``); the superheat is q_max / htc_nb(q_max) with the chosen
+    nucleate method. Beyond it the boiling curve turns towards transition and film boiling.
     """
-    q_max = (_POOL_CHF_K * sat.h_lv * math.sqrt(sat.rho_v)
-             * (sat.sigma * 9.80665 * (sat.rho_l - sat.rho_v)) ** 0.25)
+    q_max = lienhard_dhir_1973(sat.rho_l, sat.rho_v, sat.sigma, sat.h_lv)
     method = registry.get(nucleate_method)
     inputs, options = nucleate_fluid_constants(method, fluid) if fluid is not None else ({}, {})
     avail = dict(sat.as_dict(), q=q_max, **inputs)

@@ -76,5 +76,9 @@ class OutOfRangeError(PropertyError):
     """A temperature or pressure lies outside the fluid's valid range."""
 
 
-class ConvergenceError(RatingError):
-    """A numerical solution could not be found (no bracket, no convergence)."""
+class ConvergenceError(RatingError, RuntimeError):
+    """A numerical solution could not be found (no bracket, no convergence).
+
+    A ``RuntimeError`` too, so that the marchers' guard around each increment (which
+    catches ``RuntimeError``) turns it into a failed result naming the position.
+    """

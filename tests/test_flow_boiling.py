@@ -398,3 +398,17 @@ def test_dispatch_needs_dp_sat_for_wall_superheat_forms():
 def test_dispatch_refuses_other_families():
     with pytest.raises(ValueError, match="flow_boiling"):
         fb.flow_boiling_htc("dittus_boelter_1930", {"Re": 1e4, "Pr": 1.0}, 5e4)
+
+
+def test_no_wall_superheat_bracket_is_an_error_the_marchers_catch():
+    # A made-up wall-superheat method whose coefficient falls faster than 1/dT never
+    # carries the flux: the solver gives up with ConvergenceError, which must be a
+    # RuntimeError too, the class the marchers' guard turns into a failed result.
+    from rating.correlations.registry import Method
+    from rating.errors import ConvergenceError
+
+    falling = Method("falling", "flow_boiling", lambda dT_sat, dp_sat: 1.0 / (1.0 + dT_sat) ** 2,
+                     "falling coefficient")
+    with pytest.raises(ConvergenceError) as info:
+        fb.solve_wall_superheat(falling, {}, 5e4, lambda dT: 1e3 * dT)
+    assert isinstance(info.value, RuntimeError)

@@ -57,11 +57,6 @@ def _pr_l(a):
     return a["cp_l"] * a["mu_l"] / a["k_l"]
 
 
-def _r_prime(a):
-    # cylinder radius over the capillary length (Lienhard & Dhir 1973)
-    return 0.5 * a["D"] * math.sqrt(g * (a["rho_l"] - a["rho_v"]) / a["sigma"])
-
-
 def _ra_d(a):
     return (g * abs(a["beta"] * a["dT"]) * a["D"] ** 3 * a["rho"] ** 2 * a["cp"]
             / (a["mu"] * a["k"]))
@@ -88,7 +83,6 @@ DERIVED: dict[str, tuple[tuple[str, ...], Callable[[Mapping], float]]] = {
     "Re_lo": (("G", "D", "mu_l"), _re_lo),
     "Re_l": (("G", "x", "D", "mu_l"), _re_l),
     "Pr_l": (("cp_l", "mu_l", "k_l"), _pr_l),
-    "R_prime": (("D", "rho_l", "rho_v", "sigma"), _r_prime),
     "Ra_D": (("D", "dT", "rho", "mu", "k", "cp", "beta"), _ra_d),
     "Phi_b": (("bundle_diameter", "tube_length", "area"), _phi_b),
     "Re_shell": (("m_dot", "mu", "shell"), _re_shell),
