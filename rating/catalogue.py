@@ -640,15 +640,16 @@ def method_choices(path: str, draft: dict) -> list[tuple[str, str, str]]:
     from .correlations import registry
 
     part, _, family = path.partition(".")
-    if part == "kettle":  # the kettle's own choices: any registered method of the family
+    kind = get_value(draft, "type") or "evaporator"
+    orientation = get_value(draft, "tubes.orientation") or "vertical"
+    if path == "kettle.mixture_method":  # any mixture correction the kettle can feed
         from .validation import KETTLE_MIXTURE_INPUTS
 
-        family = {"mixture_method": "mixture", "bundle_max_flux": "bundle_chf"}[family]
-        methods = [m for m in registry.methods(family)
-                   if family != "mixture" or set(m.inputs) <= KETTLE_MIXTURE_INPUTS]
+        methods = [m for m in registry.methods("mixture")
+                   if set(m.inputs) <= KETTLE_MIXTURE_INPUTS]
     else:
-        kind = get_value(draft, "type") or "evaporator"
-        orientation = get_value(draft, "tubes.orientation") or "vertical"
+        if path == "kettle.bundle_max_flux":
+            family = "bundle_chf"
         methods = registry.applicable(family, kind, orientation, _fluid_cas(draft))
     out = [(m.name, m.title, m.reference) for m in methods]
     if family == "tube_dryout":

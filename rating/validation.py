@@ -711,7 +711,10 @@ def _check_method_choices(case, fluid) -> None:
 
     orientation = case.tubes.orientation
     for family in registry.families_evaluated(case.type, case.heating.kind):
-        name = getattr(case.methods, family)
+        # the kettle's bundle limit is chosen on its shell, every other family in methods
+        field = "kettle.bundle_max_flux" if family == "bundle_chf" else f"methods.{family}"
+        part, _, attr = field.partition(".")
+        name = getattr(getattr(case, part), attr)
         if family == "tube_dryout" and name == "auto":
             continue
         reason = registry.why_not(registry.get(name), case.type, orientation, fluid.cas)
@@ -720,7 +723,7 @@ def _check_method_choices(case, fluid) -> None:
         usable = [m.name for m in registry.applicable(family, case.type, orientation, fluid.cas)]
         if family == "tube_dryout":
             usable.insert(0, "auto")
-        _fail(f"methods.{family}", name, "",
+        _fail(field, name, "",
               f"cannot be used for {'an' if case.type[0] in 'aeiou' else 'a'} {case.type} "
               f"with {orientation} tubes and {fluid.name}: "
               f"{reason}; choose one of " + ", ".join(usable))

@@ -329,3 +329,40 @@ def test_fit_recovers_a_multiplier_on_the_boiling_coefficient(chiller):
     assert result.status == "fitted", result.warnings
     assert result.values["boiling.htc_factor"] == pytest.approx(0.6, rel=5e-3)
     assert 0.0 < result.uncertainty["boiling.htc_factor"] < 0.6
+
+
+# --- the kettle's bundle limit ---------------------------------------------------------------
+
+@pytest.fixture(scope="module")
+def kettle():
+    return rating.load_project(SAMPLES / "harrow-creek-kettles.ebullio").cases[0]
+
+
+def test_kettle_dryout_spread_compares_the_bundle_limits(kettle):
+    """A kettle's "dryout" is its bundle's maximum flux (kettle.bundle_max_flux), declared
+    in the registry's feeds like every other choice: both published bundle methods apply
+    (Palen & Small 1964; Palen 1983, HEDH 3.6), each once. The bundle maximum is a limit
+    the rating checks, not one it imposes, so the duty is the same with either and only
+    the critical-flux ratio moves."""
+    s = method_spread(kettle, "dryout", executor=InlineExecutor())
+    assert s.path == "kettle.bundle_max_flux"
+    assert [m[0] for m in s.methods] == ["palen_small_1964", "palen_1983"]
+    for (name, _, _), point in zip(s.methods, s.points):
+        assert point.rated, point.message
+        assert ("bundle_chf", name) in {(m.family, m.name) for m in point.result.methods}
+    duty = s.range("duty_W")
+    assert duty["spread"] == pytest.approx(0.0, abs=1e-9 * duty["high"])
+    assert s.range("max_chf_ratio")["spread"] > 0.0
+
+
+def test_a_spread_of_fewer_than_two_methods_is_refused(kettle, monkeypatch):
+    """Without the tube pitch among the kettle's feeds, Palen & Small (1964) cannot be fed
+    and only Palen (1983) is left: no spread to show, said in words."""
+    from rating.correlations import registry
+
+    feeds = dict(registry.FEEDS["kettle"])
+    feeds["bundle_chf"] = feeds["bundle_chf"] - {"tube_pitch"}
+    monkeypatch.setitem(registry.FEEDS, "kettle", feeds)
+    with pytest.raises(InputError, match="only palen_1983 applies") as err:
+        method_spread(kettle, "dryout", executor=InlineExecutor())
+    assert err.value.field == "family" and "no spread" in str(err.value)

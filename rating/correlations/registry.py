@@ -255,6 +255,10 @@ FEEDS: dict[str, dict[str, frozenset]] = {
         "nucleate_boiling": _SAT | {"q", "h0", "dT_sat", "dp_sat"},
         "single_phase_tube": frozenset({"Re", "Pr"}),      # heating liquid inside the tubes
         "two_phase_friction": _SAT | _LOCAL,               # steam condensing inside the tubes
+        # the bundle's maximum flux (kettle.bundle_max_flux), from the pool's saturation set
+        # and the bundle's geometry
+        "bundle_chf": _SAT | {"bundle_diameter", "tube_length", "area", "tube_pitch", "D",
+                              "tube_count"},
     },
 }
 

@@ -97,8 +97,10 @@ def method_spread(case, family: str, *, executor=None, increments=None, progress
     """Rate ``case`` once with each applicable method of ``family`` (its own included)."""
     path = family_path(family, case.type)
     methods = applicable_methods(case, family)
-    if not methods:
-        raise InputError(f"no {family} method applies to this {case.type}", field="family")
+    if len(methods) < 2:
+        only = f": only {methods[0][0]} applies" if methods else ""
+        raise InputError(f"method family {family!r}: fewer than two methods apply to this "
+                         f"{case.type}{only}, so there is no spread to show", field="family")
     jobs = [Job.build({"method": name},
                       lambda name=name: catalogue.with_value(case, path, name))
             for name, _, _ in methods]
