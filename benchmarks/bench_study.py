@@ -9,6 +9,13 @@ same property caches as the serial run that follows. Reports the pool's start-up
 apart from the sweep, the speed-up (serial / parallel, with and without start-up),
 the cost per point, and the machine's load average, since other work on the machine
 takes cores from both runs. Target: a speed-up of at least 1.7 on 2 cores.
+
+On a shared machine the wall-clock speed-up says as much about the other work as about
+the pool, so the CPU time is reported too: user plus system seconds per point in the
+serial run and in the workers plus the dispatching process of the parallel run. Their
+ratio is the parallel efficiency (1.0: the pool adds no work), and workers x that
+efficiency is the speed-up the pool gives when each worker has a core of its own.
+The share of a core each run obtained (CPU / wall-clock) shows how busy the machine was.
 """
 from __future__ import annotations
 
@@ -41,9 +48,9 @@ def main(argv=None) -> int:
     pool = default_executor(args.workers)
     [f.result() for f in [pool.submit(os.getpid) for _ in range(4 * args.workers)]]  # start them
     t_start = time.perf_counter() - t0
-    t0 = time.perf_counter()
+    t0, c0 = time.perf_counter(), time.process_time()
     parallel = sweep(case, [levels], executor=pool)
-    t_parallel = time.perf_counter() - t0
+    t_parallel, cpu_dispatch = time.perf_counter() - t0, time.process_time() - c0
     pool.shutdown()                                     # the workers' CPU time is now counted
     cpu_parallel = os.times().children_user + os.times().children_system - children0
 
@@ -62,10 +69,17 @@ def main(argv=None) -> int:
     print(f"serial:   {t_serial:7.2f} s  ({1e3 * t_serial / args.points:6.1f} ms per point)")
     print(f"parallel: {t_parallel:7.2f} s  on {args.workers} workers "
           f"({1e3 * t_parallel / args.points:6.1f} ms per point), pool start-up {t_start:.2f} s")
-    print(f"CPU time: serial {cpu_serial:.2f} s, parallel workers {cpu_parallel:.2f} s "
-          "(equal work; a wall-clock speed-up below the core count with equal CPU time "
-          "means the cores were busy with other work)")
-    print(f"speed-up: {t_serial / t_parallel:.2f} (sweep), "
+    n, w = args.points, args.workers
+    cpu_total = cpu_parallel + cpu_dispatch
+    efficiency = cpu_serial / cpu_total
+    print(f"CPU time: serial {cpu_serial:.2f} s ({1e3 * cpu_serial / n:.1f} ms per point); "
+          f"parallel {cpu_total:.2f} s ({1e3 * cpu_total / n:.1f} ms per point: workers "
+          f"{cpu_parallel:.2f} s incl. their start-up, dispatch {cpu_dispatch:.2f} s)")
+    print(f"share of a core obtained: serial {cpu_serial / t_serial:.2f}, parallel "
+          f"{cpu_parallel / (w * t_parallel):.2f} per worker (1.00: a core to itself)")
+    print(f"parallel efficiency (CPU serial / CPU parallel): {efficiency:.2f}; speed-up "
+          f"with a core per worker: {w * efficiency:.2f} (CPU-based, independent of load)")
+    print(f"speed-up: {t_serial / t_parallel:.2f} (sweep, wall clock), "
           f"{t_serial / (t_parallel + t_start):.2f} (with the pool's start-up); target 1.7")
     return 0 if same else 1
 
