@@ -951,8 +951,16 @@ PROFILES: dict[str, ResultField] = _results([
     ("void_fraction", "Void fraction", "fraction"),
     ("heat_flux_W_m2", "Heat flux", "heat_flux"),
     ("htc_boiling_W_m2K", "Boiling coefficient", "htc"),
-    ("htc_nucleate_W_m2K", "Nucleate part", "htc"),
-    ("htc_convective_W_m2K", "Convective part", "htc"),
+    ("htc_nucleate_W_m2K", "Nucleate part", "htc", ALL,
+     "The nucleate term as it enters the boiling coefficient, after suppression (Chen: "
+     "S htc_nb; Gungor-Winterton: S htc_pool; Kandlikar: the boiling-number term of the set "
+     "that governs; kettle: F_b F_m htc_nb). The parts add up to the coefficient, except "
+     "Liu-Winterton and subcooled boiling (htc^2 = nucleate^2 + convective^2) and "
+     "Steiner-Taborek (htc^3 = nucleate^3 + convective^3); 0 without boiling"),
+    ("htc_convective_W_m2K", "Convective part", "htc", ALL,
+     "The convective term as it enters the boiling coefficient, after enhancement (Chen: "
+     "F htc_l; Gungor-Winterton: E htc_l; kettle: natural convection); the whole "
+     "coefficient in single phase and after dryout"),
     ("htc_heating_W_m2K", "Heating-side coefficient", "htc"),
     ("chf_ratio", "Heat flux / critical heat flux", "dimensionless"),
     ("flow_pattern", "Flow pattern", "text"),

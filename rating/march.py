@@ -36,7 +36,7 @@ from .roots import brentq
 from .adjust import Adjustment
 from .correlations import registry
 from .correlations.dimensionless import g
-from .correlations.flow_boiling import flow_boiling_htc
+from .correlations.flow_boiling import station_parts
 from .correlations.dryout import KATTO_OHNO_L_D
 from .correlations.flow_pattern import wojtan_dryout_qualities
 from .correlations.single_phase import htc_tube_single_phase
@@ -378,42 +378,31 @@ class Marcher:
                 return sub(q, T_b, sat.T_sat, htc_l, nb(avail, **nb_opts), G, t.D_i, mu)
 
             def films(q):
-                avail["q"] = max(q, 1e-9)
-                return ((q / max(T_s(q) - T_b, 1e-9) if q > 0 else htc_l),
-                        nb(avail, **nb_opts), htc_l)
+                # Liu-Winterton's subcooled form is asymptotic (n = 2) in the fluxes: with
+                # htc = q/(T_s - T_b) its parts are htc_l and, by the same sum, the
+                # suppressed nucleate part S htc_nb (T_s - T_sat)/(T_s - T_b)
+                if q <= 0.0:
+                    return htc_l, 0.0, htc_l
+                htc = q / max(T_s(q) - T_b, 1e-9)
+                return htc, math.sqrt(max(htc * htc - htc_l * htc_l, 0.0)), htc_l
             return T_s, films
         if regime == "saturated boiling":
-            xx = min(max(x, 1e-4), 0.9999)
-            avail = dict(self._sat_inputs(sat), G=G, x=xx, D=t.D_i, **self.fb_inputs)
-            name, opts, dp_sat = self.fb.name, self.fb_options, sat.dp_sat
-            if "q" in self.fb.inputs:
-                # Heat-flux form: bind the fixed arguments once, outside the root on q.
-                fn = self.fb.function
-                args = {n: avail[n] for n in self.fb.inputs if n != "q"}
-
-                def htc_of(q):
-                    return fn(q=q, **args, **opts)
-            else:
-                def htc_of(q):
-                    return flow_boiling_htc(name, avail, q, dp_sat, **opts)
+            avail = dict(self._sat_inputs(sat), G=G, x=min(max(x, 1e-4), 0.9999), D=t.D_i,
+                         **self.fb_inputs)
+            # the method's flux-independent terms once; the root on q evaluates the rest
+            parts_of = station_parts(self.fb, avail, sat.dp_sat, **self.fb_options)
             last = [None, None]
 
-            def htc_at(q):
+            def parts_at(q):
                 # the root's last flux is asked again for the surface and the films
                 if q != last[0]:
-                    last[0], last[1] = q, htc_of(q)
+                    last[0], last[1] = q, parts_of(q)
                 return last[1]
 
             def T_s(q):
-                return sat.T_sat if q <= 0.0 else sat.T_sat + q / htc_at(q)
+                return sat.T_sat if q <= 0.0 else sat.T_sat + q / parts_at(q).htc
 
-            def films(q):
-                q = max(q, 1e-9)
-                htc_l = htc_tube_single_phase(G * (1.0 - xx), t.D_i, sat.mu_l, sat.k_l,
-                                              sat.cp_l, method="dittus_boelter_1930")
-                return (htc_at(q), self.nb(dict(avail, q=q, **t.nucleate_inputs),
-                                           **t.nucleate_options), htc_l)
-            return T_s, films
+            return T_s, parts_at
         if regime == "post-dryout":
             avail = dict(self._sat_inputs(sat), G=G, x=min(max(x, 0.0), 1.0), D=t.D_i)
             htc = self.post(avail)

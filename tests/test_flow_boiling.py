@@ -16,7 +16,7 @@ from CoolProp.CoolProp import PropsSI
 
 from property_sets import BASE, R10, SETS, W1
 from rating.correlations import flow_boiling as fb
-from rating.correlations.pool_boiling import forster_zuber_1955
+from rating.correlations.pool_boiling import cooper_1984, forster_zuber_1955
 from rating.correlations.registry import get, methods
 from rating.correlations.single_phase import htc_tube_single_phase
 
@@ -275,10 +275,12 @@ def test_pool_terms_section_4a_intermediates(fluid):
     fz = forster_zuber_1955(dT, dp, p["rho_l"], p["rho_v"], p["k_l"], p["cp_l"], p["mu_l"],
                             p["sigma"], p["h_lv"])
     assert fz == pytest.approx({"W1": 1452.66, "P3": 5723.09, "R10": 7338.98}[fluid], rel=1e-5)
-    cooper = fb._cooper(BASE["q"], p["P"], p["P_crit"], p["M"])
+    cooper = cooper_1984(BASE["q"], p["P"], p["P_crit"], p["M"])
     assert cooper == pytest.approx({"W1": 5990.11, "P3": 6634.96, "R10": 5856.15}[fluid],
                                    rel=1e-5)
-    assert fb._cooper(-1.0, p["P"], p["P_crit"], p["M"]) == 0.0  # not boiling: no pool term
+    for name in ("gungor_winterton_1986", "liu_winterton_1991"):  # not boiling: no pool term
+        a = state(fluid)
+        assert fb.station_parts(name, a, **_options(name, a))(-1.0).nucleate == 0.0
 
 
 def test_chen_variants_trap_10_8():

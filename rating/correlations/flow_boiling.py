@@ -9,11 +9,20 @@ The methods come in two forms:
 * wall-superheat form (``dT_sat`` and ``dp_sat`` are inputs): Chen 1966,
   whose nucleate term (Forster-Zuber) is written in the wall superheat.
 
-The march never needs to know which form a method has: it calls
-``flow_boiling_htc(name, available, q, dp_sat_of_dT)`` at each station. A
-heat-flux method is called with q; a wall-superheat method is solved for the
-superheat that carries q with ``solve_wall_superheat`` (a bracketed
-``rating.roots.brentq`` root, never a fixed-point loop).
+The march never needs to know which form a method has: at each station it takes
+``station_parts(name, available, dp_sat_of_dT)``, a function of the local flux q
+that gives the coefficient and its two parts (``BoilingParts``), with everything
+that does not depend on the flux worked out once. A heat-flux method is
+evaluated at q; a wall-superheat method is solved for the superheat that carries
+q with ``solve_wall_superheat`` (a bracketed ``rating.roots.brentq`` root, never
+a fixed-point loop). ``flow_boiling_htc`` gives the coefficient alone.
+
+The parts are the nucleate and convective terms as they enter each method's own
+combination, after its suppression and enhancement factors, so that a profile
+of the three is what the coefficient is made of: htc^n = nucleate^n +
+convective^n with the method's ``parts_exponent`` n (1 for the superpositions
+of Chen, Gungor-Winterton and Kandlikar's governing set, 2 for Liu-Winterton,
+3 for Steiner-Taborek).
 
 Common conventions
 ------------------
@@ -35,7 +44,7 @@ Common conventions
 from __future__ import annotations
 
 import math
-from typing import Callable, Mapping
+from typing import Callable, Mapping, NamedTuple
 
 from ..roots import brentq
 
@@ -55,6 +64,20 @@ _COOPER = (
 )
 
 
+class BoilingParts(NamedTuple):
+    """A flow-boiling coefficient and the two parts it is made of [W/m^2/K].
+
+    The parts are the terms as they enter the method's own combination, after its
+    suppression and enhancement factors: htc^n = nucleate^n + convective^n, with n
+    the method's ``parts_exponent`` (1 for a superposition, 2 or 3 for an asymptotic
+    sum). A plot of the three shows what the coefficient is made of.
+    """
+
+    htc: float
+    nucleate: float
+    convective: float
+
+
 # --- shared private terms ---------------------------------------------------
 
 def _quality(x):
@@ -64,11 +87,6 @@ def _quality(x):
 def _htc_liquid(G, D, mu_l, k_l, cp_l, nusselt=dittus_boelter_1930):
     """Single-phase liquid coefficient for the mass flux G (pass G(1-x) for the liquid fraction)."""
     return nusselt(reynolds(G, D, mu_l), prandtl(cp_l, mu_l, k_l)) * k_l / D
-
-
-def _cooper(q, P, P_crit, M):
-    # pool_boiling.cooper_1984 (Rp = 1 um); a negative flux (not boiling) counts as zero
-    return cooper_1984(max(q, 0.0), P, P_crit, M)
 
 
 def _gungor_winterton_froude(G, rho_l, D, horizontal):
@@ -81,9 +99,27 @@ def _gungor_winterton_froude(G, rho_l, D, horizontal):
 
 # --- Chen (1966) -------------------------------------------------------------
 
+def _chen_station(G, x, D, rho_l, rho_v, mu_l, mu_v, k_l, cp_l, h_lv, sigma):
+    """Chen's parts as a function of (dT_sat, dp_sat): S htc_FZ and F htc_l."""
+    x = _quality(x)
+    G_l = G * (1.0 - x)
+    htc_l = _htc_liquid(G_l, D, mu_l, k_l, cp_l)
+    inv_xtt = 1.0 / martinelli_xtt(x, rho_l, rho_v, mu_l, mu_v)
+    F = 1.0 if inv_xtt <= 0.1 else 2.35 * (inv_xtt + 0.213) ** 0.736
+    Re_tp = reynolds(G_l, D, mu_l) * F**1.25
+    S = 1.0 / (1.0 + 2.53e-6 * Re_tp**1.17)
+    convective = F * htc_l
+
+    def parts(dT_sat, dp_sat):
+        nucleate = S * forster_zuber_1955(dT_sat, dp_sat, rho_l, rho_v, k_l, cp_l, mu_l, sigma,
+                                          h_lv)
+        return BoilingParts(convective + nucleate, nucleate, convective)
+    return parts
+
+
 @register(
     "flow_boiling", "Chen (1966)",
-    validity={"x": (0.01, 0.71)},
+    validity={"x": (0.01, 0.71)}, station=_chen_station, parts_exponent=1,
     references=(
         "Chen, J.C. (1966) Correlation for boiling heat transfer to saturated fluids in "
         "convective flow, Ind. Eng. Chem. Process Des. Dev. 5(3), 322-329, "
@@ -110,6 +146,7 @@ def chen_1966(G, x, D, rho_l, rho_v, mu_l, mu_v, k_l, cp_l, h_lv, sigma, dT_sat,
     htc_FZ is Forster-Zuber,
     0.00122 k^0.79 cp^0.45 rho_l^0.49 / (sigma^0.5 mu^0.29 h_lv^0.24 rho_v^0.24)
     dT_sat^0.24 dp_sat^0.75; it is zero for dT_sat <= 0 or dp_sat <= 0.
+    Parts (``BoilingParts``): nucleate S htc_FZ, convective F htc_l; they add up.
 
     Validity: Chen's database, x 0.01 to 0.71, vertical tubes, water and
     organic liquids. Quality outside (0, 1) is clamped (module docstring).
@@ -155,15 +192,8 @@ def chen_1966(G, x, D, rho_l, rho_v, mu_l, mu_v, k_l, cp_l, h_lv, sigma, dT_sat,
     Boiling and Condensation, 3rd ed. Forster, H.K. & Zuber, N. (1955)
     AIChE J. 1, 531-535, doi:10.1002/aic.690010425.
     """
-    x = _quality(x)
-    G_l = G * (1.0 - x)
-    htc_l = _htc_liquid(G_l, D, mu_l, k_l, cp_l)
-    inv_xtt = 1.0 / martinelli_xtt(x, rho_l, rho_v, mu_l, mu_v)
-    F = 1.0 if inv_xtt <= 0.1 else 2.35 * (inv_xtt + 0.213) ** 0.736
-    Re_tp = reynolds(G_l, D, mu_l) * F**1.25
-    S = 1.0 / (1.0 + 2.53e-6 * Re_tp**1.17)
-    htc_fz = forster_zuber_1955(dT_sat, dp_sat, rho_l, rho_v, k_l, cp_l, mu_l, sigma, h_lv)
-    return F * htc_l + S * htc_fz
+    return _chen_station(G, x, D, rho_l, rho_v, mu_l, mu_v, k_l, cp_l, h_lv, sigma)(
+        dT_sat, dp_sat).htc
 
 
 # --- Gungor & Winterton (1986, 1987) -----------------------------------------
@@ -171,9 +201,47 @@ def chen_1966(G, x, D, rho_l, rho_v, mu_l, mu_v, k_l, cp_l, h_lv, sigma, dT_sat,
 _GW_DATABASE = {"D": (2.95e-3, 32e-3), "G": (12.4, 61518.0), "q": (350.0, 2.62e6)}
 
 
+def _gungor_winterton_1986_station(G, x, D, rho_l, rho_v, mu_l, mu_v, k_l, cp_l, h_lv, P,
+                                   P_crit, M, *, horizontal=False):
+    """Gungor-Winterton's parts as a function of q: S S2 htc_Cooper and E E2 htc_l.
+    Everything but Bo and Cooper's q^0.67 is worked out once."""
+    x = _quality(x)
+    G_l = G * (1.0 - x)
+    htc_l = _htc_liquid(G_l, D, mu_l, k_l, cp_l)
+    E_quality = 1.0 + 1.37 * martinelli_xtt(x, rho_l, rho_v, mu_l, mu_v) ** -0.86
+    suppression = 1.15e-6 * reynolds(G_l, D, mu_l) ** 1.17
+    E2, S2 = _gungor_winterton_froude(G, rho_l, D, horizontal)
+    cooper_per_q067 = cooper_1984(1.0, P, P_crit, M)    # Cooper's htc at q = 1 W/m^2
+    per_flux = 1.0 / (G * h_lv)                          # Bo = q / (G h_lv)
+
+    def parts(q):
+        q = max(q, 0.0)
+        E = E_quality + 24000.0 * (q * per_flux) ** 1.16
+        S = 1.0 / (1.0 + suppression * E * E)
+        convective = E * E2 * htc_l
+        nucleate = S * S2 * cooper_per_q067 * q ** 0.67
+        return BoilingParts(convective + nucleate, nucleate, convective)
+    return parts
+
+
+def _gungor_winterton_1987_station(G, x, D, rho_l, rho_v, mu_l, k_l, cp_l, h_lv, *,
+                                   horizontal=False):
+    """The simplified correlation's parts as a function of q: the boiling-number term of
+    its one enhancement factor times E2 htc_l, and the rest (1 + the quality term)."""
+    x = _quality(x)
+    htc_l = _htc_liquid(G * (1.0 - x), D, mu_l, k_l, cp_l)
+    E2, _ = _gungor_winterton_froude(G, rho_l, D, horizontal)
+    convective = (1.0 + 1.12 * (x / (1.0 - x)) ** 0.75 * (rho_l / rho_v) ** 0.41) * E2 * htc_l
+
+    def parts(q):
+        nucleate = 3000.0 * boiling_number(max(q, 0.0), G, h_lv) ** 0.86 * E2 * htc_l
+        return BoilingParts(convective + nucleate, nucleate, convective)
+    return parts
+
+
 @register(
     "flow_boiling", "Gungor-Winterton (1986)",
-    validity=dict(_GW_DATABASE),
+    validity=dict(_GW_DATABASE), station=_gungor_winterton_1986_station, parts_exponent=1,
     references=(
         "Gungor, K.E. & Winterton, R.H.S. (1986) A general correlation for flow boiling in "
         "tubes and annuli, Int. J. Heat Mass Transfer 29(3), 351-358, "
@@ -200,6 +268,8 @@ def gungor_winterton_1986(G, x, D, q, rho_l, rho_v, mu_l, mu_v, k_l, cp_l, h_lv,
     *uncorrected* E and then multiplied by S2 (CHECK-VALUES section 4b; with
     the corrected E the section 4b case would give 837.7 instead of 822.3
     W/m^2/K, +1.9 %).
+    Parts (``BoilingParts``): nucleate S S2 htc_Cooper, convective E E2 htc_l;
+    they add up.
 
     Validity: the paper's database, D 2.95-32 mm, G 12.4-61 518 kg/m^2/s,
     q 0.35-2620 kW/m^2; water, refrigerants and ethylene glycol.
@@ -248,19 +318,13 @@ def gungor_winterton_1986(G, x, D, q, rho_l, rho_v, mu_l, mu_v, k_l, cp_l, h_lv,
     351-358, doi:10.1016/0017-9310(86)90205-X. Cooper, M.G. (1984) IChemE
     Symp. Ser. 86, 785-793.
     """
-    x = _quality(x)
-    G_l = G * (1.0 - x)
-    htc_l = _htc_liquid(G_l, D, mu_l, k_l, cp_l)
-    Bo = boiling_number(max(q, 0.0), G, h_lv)
-    E = 1.0 + 24000.0 * Bo**1.16 + 1.37 * martinelli_xtt(x, rho_l, rho_v, mu_l, mu_v) ** -0.86
-    S = 1.0 / (1.0 + 1.15e-6 * E**2 * reynolds(G_l, D, mu_l) ** 1.17)
-    E2, S2 = _gungor_winterton_froude(G, rho_l, D, horizontal)
-    return E * E2 * htc_l + S * S2 * _cooper(q, P, P_crit, M)
+    return _gungor_winterton_1986_station(G, x, D, rho_l, rho_v, mu_l, mu_v, k_l, cp_l, h_lv,
+                                          P, P_crit, M, horizontal=horizontal)(q).htc
 
 
 @register(
     "flow_boiling", "Gungor-Winterton (1987), simplified",
-    validity=dict(_GW_DATABASE),
+    validity=dict(_GW_DATABASE), station=_gungor_winterton_1987_station, parts_exponent=1,
     references=(
         "Gungor, K.E. & Winterton, R.H.S. (1987) Simplified general correlation for saturated "
         "flow boiling and comparisons of correlations with data, Chem. Eng. Res. Des. 65(2), "
@@ -277,7 +341,9 @@ def gungor_winterton_1987(G, x, D, q, rho_l, rho_v, mu_l, k_l, cp_l, h_lv, *, ho
               \\left(\\frac{\\rho_l}{\\rho_v}\\right)^{0.41}\\right] E_2
 
     htc_l Dittus-Boelter with Re_l = G(1-x)D/mu_l. E2 = Fr_lo^(0.1 - 2 Fr_lo)
-    in horizontal tubes with Fr_lo < 0.05, else 1.
+    in horizontal tubes with Fr_lo < 0.05, else 1. Parts (``BoilingParts``): the
+    one factor split, nucleate 3000 Bo^0.86 E2 htc_l, convective the rest
+    (1 + the quality term) E2 htc_l; they add up.
 
     Validity: the Gungor-Winterton database, D 2.95-32 mm,
     G 12.4-61 518 kg/m^2/s, q 0.35-2620 kW/m^2.
@@ -316,12 +382,8 @@ def gungor_winterton_1987(G, x, D, q, rho_l, rho_v, mu_l, k_l, cp_l, h_lv, *, ho
     ----------
     Gungor, K.E. & Winterton, R.H.S. (1987) Chem. Eng. Res. Des. 65, 148-156.
     """
-    x = _quality(x)
-    htc_l = _htc_liquid(G * (1.0 - x), D, mu_l, k_l, cp_l)
-    Bo = boiling_number(max(q, 0.0), G, h_lv)
-    E = 1.0 + 3000.0 * Bo**0.86 + 1.12 * (x / (1.0 - x)) ** 0.75 * (rho_l / rho_v) ** 0.41
-    E2, _ = _gungor_winterton_froude(G, rho_l, D, horizontal)
-    return E * E2 * htc_l
+    return _gungor_winterton_1987_station(G, x, D, rho_l, rho_v, mu_l, k_l, cp_l, h_lv,
+                                          horizontal=horizontal)(q).htc
 
 
 # --- Kandlikar (1990) --------------------------------------------------------
@@ -368,9 +430,31 @@ def kandlikar_fluid_factor(name):
     return _KANDLIKAR_F_FL.get(key)
 
 
+def _kandlikar_1990_station(G, x, D, rho_l, rho_v, mu_l, k_l, cp_l, h_lv, *,
+                           fluid_surface_factor=1.0, horizontal=False):
+    """Kandlikar's parts as a function of q: the two terms of the set that governs."""
+    x = _quality(x)
+    htc_l = _htc_liquid(G * (1.0 - x), D, mu_l, k_l, cp_l)
+    Co = convection_number(x, rho_l, rho_v)
+    Fr = froude_liquid_only(G, rho_l, D)
+    froude = (25.0 * Fr) ** 0.3 if horizontal and Fr < 0.04 else 1.0
+    convective_of_set = (1.1360 * Co**-0.9 * froude, 0.6683 * Co**-0.2 * froude)
+
+    def parts(q):
+        nucleate = boiling_number(max(q, 0.0), G, h_lv) ** 0.7 * fluid_surface_factor
+        sets = [(c + n, c, n) for c, n in zip(convective_of_set,
+                                              (667.2 * nucleate, 1058.0 * nucleate))]
+        total, c, n = max(sets)
+        if total < 1.0:    # the floor: the liquid coefficient
+            total, c, n = 1.0, 1.0, 0.0
+        return BoilingParts(htc_l * total, htc_l * n, htc_l * c)
+    return parts
+
+
 @register(
     "flow_boiling", "Kandlikar (1990)",
     validity={"D": (4e-3, 32e-3), "G": (13.0, 8179.0), "x": (0.001, 0.987)},
+    station=_kandlikar_1990_station, parts_exponent=1,
     references=(
         "Kandlikar, S.G. (1990) A general correlation for saturated two-phase flow boiling "
         "heat transfer inside horizontal and vertical tubes, J. Heat Transfer 112(1), 219-228, "
@@ -391,6 +475,10 @@ def kandlikar_1990(G, x, D, q, rho_l, rho_v, mu_l, k_l, cp_l, h_lv, *,
     (0.6683, -0.2, 1058.0, 0.7); the larger result is taken. C5 = 0.3 in
     horizontal tubes with Fr_lo < 0.04, else 0. htc_l is Dittus-Boelter with
     Re_l = G(1-x)D/mu_l; Co = ((1-x)/x)^0.8 (rho_v/rho_l)^0.5, Bo = q/(G h_lv).
+    Parts (``BoilingParts``): not a sum of two terms but the larger of two sets,
+    each a sum: the parts are the two terms of the set that governs, nucleate
+    C3 Bo^C4 F_fl htc_l, convective C1 Co^C2 (25 Fr_lo)^C5 htc_l; they add up
+    (at the floor: convective htc_l, nucleate 0).
 
     Limit: as x -> 0 and q -> 0 both sets tend to zero (Co^-0.2 -> 0), below
     the liquid coefficient; the result is therefore floored at htc_l
@@ -438,22 +526,32 @@ def kandlikar_1990(G, x, D, q, rho_l, rho_v, mu_l, k_l, cp_l, h_lv, *,
     boiling heat transfer inside horizontal and vertical tubes, J. Heat
     Transfer 112, 219-228, doi:10.1115/1.2910348.
     """
-    x = _quality(x)
-    htc_l = _htc_liquid(G * (1.0 - x), D, mu_l, k_l, cp_l)
-    Co = convection_number(x, rho_l, rho_v)
-    nucleate = boiling_number(max(q, 0.0), G, h_lv) ** 0.7 * fluid_surface_factor
-    Fr = froude_liquid_only(G, rho_l, D)
-    froude = (25.0 * Fr) ** 0.3 if horizontal and Fr < 0.04 else 1.0
-    convective_set = 1.1360 * Co**-0.9 * froude + 667.2 * nucleate
-    nucleate_set = 0.6683 * Co**-0.2 * froude + 1058.0 * nucleate
-    return htc_l * max(convective_set, nucleate_set, 1.0)
+    return _kandlikar_1990_station(G, x, D, rho_l, rho_v, mu_l, k_l, cp_l, h_lv,
+                                   fluid_surface_factor=fluid_surface_factor,
+                                   horizontal=horizontal)(q).htc
 
 
 # --- Liu & Winterton (1991) --------------------------------------------------
 
+def _liu_winterton_1991_station(G, x, D, rho_l, rho_v, mu_l, k_l, cp_l, P, P_crit, M):
+    """Liu-Winterton's parts as a function of q: S htc_Cooper and F htc_lo."""
+    x = _quality(x)
+    htc_lo = _htc_liquid(G, D, mu_l, k_l, cp_l)
+    F = (1.0 + x * prandtl(cp_l, mu_l, k_l) * (rho_l / rho_v - 1.0)) ** 0.35
+    S = 1.0 / (1.0 + 0.055 * F**0.1 * reynolds(G, D, mu_l) ** 0.16)
+    convective = F * htc_lo
+    nucleate_per_q067 = S * cooper_1984(1.0, P, P_crit, M)
+
+    def parts(q):
+        nucleate = nucleate_per_q067 * max(q, 0.0) ** 0.67
+        return BoilingParts(math.hypot(convective, nucleate), nucleate, convective)
+    return parts
+
+
 @register(
     "flow_boiling", "Liu-Winterton (1991)",
     validity={"D": (2.95e-3, 32e-3), "G": (12.4, 8179.3), "q": (350.0, 2.62e6)},
+    station=_liu_winterton_1991_station, parts_exponent=2,
     references=(
         "Liu, Z. & Winterton, R.H.S. (1991) A general correlation for saturated and subcooled "
         "flow boiling in tubes and annuli, based on a nucleate pool boiling equation, "
@@ -484,6 +582,9 @@ def liu_winterton_1991(G, x, D, q, rho_l, rho_v, mu_l, k_l, cp_l, P, P_crit, M):
     -1 %, +0.3 % and +25 % at the W1, P3 and R10 base cases (CHECK-VALUES
     section 10.2). Vertical tubes: the paper's horizontal Froude factors are
     not applied.
+
+    Parts (``BoilingParts``): nucleate S htc_Cooper, convective F htc_lo; not a
+    sum: htc^2 = nucleate^2 + convective^2.
 
     Validity: the paper's saturated database, D 2.95-32 mm,
     G 12.4-8179 kg/m^2/s, q 0.35-2620 kW/m^2.
@@ -526,11 +627,8 @@ def liu_winterton_1991(G, x, D, q, rho_l, rho_v, mu_l, k_l, cp_l, P, P_crit, M):
     2759-2766, doi:10.1016/0017-9310(91)90234-6. Cooper, M.G. (1984) IChemE
     Symp. Ser. 86, 785-793.
     """
-    x = _quality(x)
-    htc_lo = _htc_liquid(G, D, mu_l, k_l, cp_l)
-    F = (1.0 + x * prandtl(cp_l, mu_l, k_l) * (rho_l / rho_v - 1.0)) ** 0.35
-    S = 1.0 / (1.0 + 0.055 * F**0.1 * reynolds(G, D, mu_l) ** 0.16)
-    return math.hypot(F * htc_lo, S * _cooper(q, P, P_crit, M))
+    return _liu_winterton_1991_station(G, x, D, rho_l, rho_v, mu_l, k_l, cp_l, P, P_crit, M)(
+        q).htc
 
 
 # --- Steiner & Taborek (1992) ------------------------------------------------
@@ -597,8 +695,29 @@ def _st_nucleate_factor(q, q_ref, D, roughness, p_r, M):
             * (D / 0.01) ** -0.4 * (roughness / 1e-6) ** 0.133 * _st_molar_mass_factor(M))
 
 
+def _steiner_taborek_1992_station(G, x, D, rho_l, rho_v, mu_l, k_l, cp_l, h_lv, sigma, T_sat, P,
+                                  P_crit, M, *, h_nb_ref, q_ref=20e3, roughness=1e-6):
+    """Steiner-Taborek's parts as a function of q: F_nb h_nb,o (0 below the onset of
+    nucleate boiling) and F_tp htc_lo."""
+    x = _quality(x)
+    htc_lo = _htc_liquid(G, D, mu_l, k_l, cp_l, nusselt=gnielinski_1976)
+    convective = _st_two_phase_factor(x, rho_l, rho_v) * htc_lo
+    q_onb = 2.0 * sigma * T_sat * htc_lo / (0.3e-6 * rho_v * h_lv)
+    p_r = P / P_crit
+    nf = _st_flux_exponent(p_r)
+    at_q_ref = _st_nucleate_factor(q_ref, q_ref, D, roughness, p_r, M) * h_nb_ref
+
+    def parts(q):
+        if q < q_onb:
+            return BoilingParts(convective, 0.0, convective)
+        nucleate = at_q_ref * (q / q_ref) ** nf
+        return BoilingParts((convective**3 + nucleate**3) ** (1.0 / 3.0), nucleate, convective)
+    return parts
+
+
 @register(
-    "flow_boiling", "Steiner-Taborek (1992)",
+    "flow_boiling", "Steiner-Taborek (1992)", station=_steiner_taborek_1992_station,
+    parts_exponent=3,
     validity={"p_r": (None, 0.95), "M": (10.0, 187.0)}, orientations=("vertical",),
     references=(
         "Steiner, D. & Taborek, J. (1992) Flow boiling heat transfer in vertical tubes "
@@ -624,6 +743,8 @@ def steiner_taborek_1992(G, x, D, q, rho_l, rho_v, mu_l, k_l, cp_l, h_lv, sigma,
     Below the onset of nucleate boiling, q < q_ONB = 2 sigma T_sat htc_lo /
     (r0 rho_v h_lv) with r0 = 0.3 um, the nucleate term is switched off and
     htc = F_tp htc_lo (so the coefficient jumps at q_ONB, as in the paper).
+    Parts (``BoilingParts``): nucleate F_nb h_nb,o, convective F_tp htc_lo; not a
+    sum: htc^3 = nucleate^3 + convective^3.
 
     Validity: vertical tubes below dryout; F(M) is fitted for 10 < M < 187;
     non-cryogenic fluids (the cryogen exponent nf is not implemented).
@@ -680,20 +801,39 @@ def steiner_taborek_1992(G, x, D, q, rho_l, rho_v, mu_l, k_l, cp_l, h_lv, sigma,
     tubes correlated by an asymptotic model, Heat Transfer Eng. 13(2), 43-69,
     doi:10.1080/01457639208939774.
     """
-    x = _quality(x)
-    htc_lo = _htc_liquid(G, D, mu_l, k_l, cp_l, nusselt=gnielinski_1976)
-    convective = _st_two_phase_factor(x, rho_l, rho_v) * htc_lo
-    q_onb = 2.0 * sigma * T_sat * htc_lo / (0.3e-6 * rho_v * h_lv)
-    if q < q_onb:
-        return convective
-    nucleate = _st_nucleate_factor(q, q_ref, D, roughness, P / P_crit, M) * h_nb_ref
-    return (convective**3 + nucleate**3) ** (1.0 / 3.0)
+    return _steiner_taborek_1992_station(G, x, D, rho_l, rho_v, mu_l, k_l, cp_l, h_lv, sigma,
+                                         T_sat, P, P_crit, M, h_nb_ref=h_nb_ref, q_ref=q_ref,
+                                         roughness=roughness)(q).htc
 
 
 # --- dispatch used by the march ----------------------------------------------
 
 def _method(method):
     return get(method) if isinstance(method, str) else method
+
+
+def _superheat_for(at, q, dp_sat_of_dT, title) -> float:
+    """Wall superheat at which the parts function ``at(dT_sat, dp_sat)`` carries q."""
+    if q <= 0.0:
+        return 0.0
+
+    def residual(dT):
+        return at(dT, dp_sat_of_dT(dT)).htc * dT - q
+
+    htc0 = at(0.0, dp_sat_of_dT(0.0)).htc  # convective part alone
+    hi = q / htc0 if htc0 > 0.0 else 1.0
+    for _ in range(60):
+        r = residual(hi)
+        if r == 0.0:
+            return hi
+        if r > 0.0:
+            return brentq(residual, 0.0, hi, xtol=1e-12, rtol=1e-12)
+        hi *= 2.0
+    raise ConvergenceError(f"{title}: no wall superheat carries q = {q:.4g} W/m2")
+
+
+def _drive(m: Method) -> tuple[str, ...]:
+    return ("q",) if "q" in m.inputs else ("dT_sat", "dp_sat")
 
 
 def solve_wall_superheat(method, available: Mapping[str, float], q: float,
@@ -728,25 +868,55 @@ def solve_wall_superheat(method, available: Mapping[str, float], q: float,
         When no bracket is found (a method whose htc falls with superheat).
     """
     m = _method(method)
-    if q <= 0.0:
-        return 0.0
+    at = m.station(**{n: available[n] for n in m.inputs if n not in _drive(m)}, **options)
+    return _superheat_for(at, q, dp_sat_of_dT, m.title)
 
-    def htc(dT):
-        return m({**available, "dT_sat": dT, "dp_sat": dp_sat_of_dT(dT)}, **options)
 
-    def residual(dT):
-        return htc(dT) * dT - q
+def station_parts(method, available: Mapping[str, float],
+                  dp_sat_of_dT: Callable[[float], float] | None = None,
+                  **options) -> Callable[[float], BoilingParts]:
+    """A flow-boiling method at one station: q -> ``BoilingParts`` (htc, nucleate,
+    convective) [W/m^2/K] at the heat flux q [W/m^2].
 
-    htc0 = htc(0.0)  # convective part alone
-    hi = q / htc0 if htc0 > 0.0 else 1.0
-    for _ in range(60):
-        r = residual(hi)
-        if r == 0.0:
-            return hi
-        if r > 0.0:
-            return brentq(residual, 0.0, hi, xtol=1e-12, rtol=1e-12)
-        hi *= 2.0
-    raise ConvergenceError(f"{m.title}: no wall superheat carries q = {q:.4g} W/m2")
+    What does not depend on the flux is worked out once here (the method's
+    ``station``), so that a root on q evaluates only the flux terms. A
+    wall-superheat method (Chen) is solved for the superheat that carries q
+    (``solve_wall_superheat``) and its parts taken there, so htc * dT_sat = q.
+
+    Parameters
+    ----------
+    method : Method or str
+        A registered flow-boiling method, or its name
+    available : mapping
+        Its inputs but q (or dT_sat and dp_sat), by argument name (SI)
+    dp_sat_of_dT : callable
+        dp_sat(dT) = p_sat(T_sat + dT) - P [Pa]; needed by wall-superheat methods
+
+    Returns
+    -------
+    parts : callable
+        q [W/m^2] -> BoilingParts [W/m^2/K]
+    """
+    m = _method(method)
+    if m.family != "flow_boiling":
+        raise ValueError(f"{m.name!r} is a {m.family} method, not flow_boiling")
+    drive = _drive(m)
+    fixed = {n: available[n] for n in m.inputs if n not in drive}
+    if m.station is not None:
+        at = m.station(**fixed, **options)
+    else:   # a method without parts: its coefficient alone, the parts not computed
+        def at(*values):
+            return BoilingParts(m.function(**fixed, **dict(zip(drive, values)), **options),
+                                None, None)
+    if drive == ("q",):
+        return at
+    if dp_sat_of_dT is None:
+        raise ValueError(f"{m.name} is a wall-superheat form: give dp_sat_of_dT")
+
+    def parts(q):
+        dT = _superheat_for(at, q, dp_sat_of_dT, m.title)
+        return at(dT, dp_sat_of_dT(dT))
+    return parts
 
 
 def flow_boiling_htc(name: str, available: Mapping[str, float], q: float,
@@ -756,10 +926,9 @@ def flow_boiling_htc(name: str, available: Mapping[str, float], q: float,
 
     Heat-flux methods are called with q; wall-superheat methods (Chen) are
     solved for dT_sat with ``solve_wall_superheat`` and evaluated there, so
-    htc * dT_sat = q. This is the one entry point the march uses at every
-    station, inside its own bracketed solve for the wall temperature.
-    Options (``horizontal``, ``fluid_surface_factor``, ``h_nb_ref`` ...) are
-    given by keyword through ``options``.
+    htc * dT_sat = q (``station_parts``, which the march uses, gives the parts
+    too). Options (``horizontal``, ``fluid_surface_factor``, ``h_nb_ref`` ...)
+    are given by keyword through ``options``.
 
     Parameters
     ----------
@@ -777,12 +946,4 @@ def flow_boiling_htc(name: str, available: Mapping[str, float], q: float,
     htc : float
         Two-phase coefficient [W/m^2/K]
     """
-    m: Method = get(name)
-    if m.family != "flow_boiling":
-        raise ValueError(f"{name!r} is a {m.family} method, not flow_boiling")
-    if "q" in m.inputs:
-        return m({**available, "q": q}, **options)
-    if dp_sat_of_dT is None:
-        raise ValueError(f"{name} is a wall-superheat form: give dp_sat_of_dT")
-    dT = solve_wall_superheat(m, available, q, dp_sat_of_dT, **options)
-    return m({**available, "dT_sat": dT, "dp_sat": dp_sat_of_dT(dT)}, **options)
+    return station_parts(name, available, dp_sat_of_dT, **options)(q).htc

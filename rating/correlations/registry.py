@@ -107,6 +107,13 @@ class Method:
     orientations: tuple[str, ...] | None = None
     #: CAS numbers of the only fluids the method holds for (None: any fluid).
     fluids: tuple[str, ...] | None = None
+    #: A flow-boiling method's parts at one station: called with the function's inputs
+    #: but its local drive (q, or dT_sat and dp_sat), it does the work that does not
+    #: depend on the drive once and returns drive -> (htc, nucleate part, convective
+    #: part) (``flow_boiling.BoilingParts``). None for other families.
+    station: Callable | None = None
+    #: How the parts make the coefficient: htc^n = nucleate^n + convective^n.
+    parts_exponent: int | None = None
 
     @cached_property
     def inputs(self) -> tuple[str, ...]:
@@ -185,12 +192,13 @@ REGISTRY: dict[str, Method] = {}
 
 
 def register(family: str, title: str, *, validity=None, references=(), notes="",
-             orientations=None, fluids=None):
+             orientations=None, fluids=None, station=None, parts_exponent=None):
     """Decorator: record a correlation function in the registry under its own name.
 
     ``orientations`` names the tube orientations the method was published for
     ("vertical", "horizontal"); None means it holds for either. ``fluids`` lists the
     CAS numbers of the only fluids it holds for (a water-only table); None means any.
+    ``station`` and ``parts_exponent``: a flow-boiling method's parts (``Method.station``).
     """
     if family not in FAMILIES:
         raise ValueError(f"unknown family {family!r}")
@@ -203,6 +211,7 @@ def register(family: str, title: str, *, validity=None, references=(), notes="",
             validity=dict(validity or {}), references=tuple(references), notes=notes,
             orientations=tuple(orientations) if orientations else None,
             fluids=tuple(fluids) if fluids else None,
+            station=station, parts_exponent=parts_exponent,
         )
         return fn
 
