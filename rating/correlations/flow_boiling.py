@@ -868,8 +868,20 @@ def solve_wall_superheat(method, available: Mapping[str, float], q: float,
         When no bracket is found (a method whose htc falls with superheat).
     """
     m = _method(method)
-    at = m.station(**{n: available[n] for n in m.inputs if n not in _drive(m)}, **options)
-    return _superheat_for(at, q, dp_sat_of_dT, m.title)
+    return _superheat_for(_station_of(m, available, options), q, dp_sat_of_dT, m.title)
+
+
+def _station_of(m: Method, available, options):
+    """The method's parts as a function of its drive (q, or dT_sat and dp_sat)."""
+    drive = _drive(m)
+    fixed = {n: available[n] for n in m.inputs if n not in drive}
+    if m.station is not None:
+        return m.station(**fixed, **options)
+
+    def at(*values):   # a method without parts: its coefficient alone, parts not computed
+        return BoilingParts(m.function(**fixed, **dict(zip(drive, values)), **options),
+                            None, None)
+    return at
 
 
 def station_parts(method, available: Mapping[str, float],
@@ -900,15 +912,8 @@ def station_parts(method, available: Mapping[str, float],
     m = _method(method)
     if m.family != "flow_boiling":
         raise ValueError(f"{m.name!r} is a {m.family} method, not flow_boiling")
-    drive = _drive(m)
-    fixed = {n: available[n] for n in m.inputs if n not in drive}
-    if m.station is not None:
-        at = m.station(**fixed, **options)
-    else:   # a method without parts: its coefficient alone, the parts not computed
-        def at(*values):
-            return BoilingParts(m.function(**fixed, **dict(zip(drive, values)), **options),
-                                None, None)
-    if drive == ("q",):
+    at = _station_of(m, available, options)
+    if "q" in m.inputs:
         return at
     if dp_sat_of_dT is None:
         raise ValueError(f"{m.name} is a wall-superheat form: give dp_sat_of_dT")
