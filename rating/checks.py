@@ -58,7 +58,7 @@ LIMIT_SOURCES = {
                                                "reboiler', Chemical Engineering World)"),
     "thermosiphon_min_pressure": (30e3, "Pa", "Thermosiphons are not normally specified below "
                                   "about 0.3 bar: static head suppresses boiling (Sinnott, "
-                                  "Coulson & Richardson Vol. 6, as taught in course notes)"),
+                                  "Coulson & Richardson Vol. 6; from memory)"),
     "thermosiphon_nozzle_rho_v2": (8928.0, "kg/m/s^2", "TEMA: tube-side nozzles rho v^2 <= "
                                    "6,000 lb/ft s^2 (8,928 kg/m s^2)"),
     "thermosiphon_max_subcooled_fraction": (0.25, "-", "Ebullio's default for a long sensible-"

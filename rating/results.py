@@ -81,6 +81,11 @@ class Result:
     #: Ebullio and CoolProp versions, method names, the case's SHA-256, the UTC time rated.
     provenance: dict = field(default_factory=dict)
 
+    def __post_init__(self):
+        # One contract for every surface: a figure that was not computed is None, never
+        # NaN or infinity (which a table would print as "nan" or a plot as a spike).
+        object.__setattr__(self, "summary", {k: _clean(v) for k, v in self.summary.items()})
+
     @property
     def has_errors(self) -> bool:
         return any(w.severity == "error" for w in self.warnings)
@@ -89,7 +94,7 @@ class Result:
         out = {
             "name": self.name, "type": self.type, "status": self.status,
             "message": self.message,
-            "summary": {k: _clean(v) for k, v in self.summary.items()},
+            "summary": dict(self.summary),
             "warnings": [w.to_dict() for w in self.warnings],
             "methods": [m.to_dict() for m in self.methods],
             "profiles": {k: [_clean(v) for v in vals] for k, vals in self.profiles.items()},

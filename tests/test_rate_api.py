@@ -45,3 +45,23 @@ def test_every_result_carries_its_provenance():
     again = rating.rate(dataclasses.replace(case)).provenance["case_sha256"]
     other = rating.rate(dataclasses.replace(case, increments=21)).provenance["case_sha256"]
     assert again == p["case_sha256"] != other
+
+
+def test_a_figure_not_computed_is_none_in_the_summary_never_nan_or_infinity():
+    # The summary's contract (DEVELOPERS.md): not computed is None. An exchanger that
+    # marks a flux-dependent factor with NaN or a velocity over a zero width with
+    # infinity must not reach a table as "nan"/"inf" (the window and the report format
+    # summary values directly).
+    import math
+
+    import numpy as np
+
+    from rating.results import Result
+
+    r = Result("c", "kettle", "ok", "rated",
+               summary={"mixture_factor": math.nan, "surface_vapour_velocity_m_s": math.inf,
+                        "duty_W": np.float64(2.5e6), "circulation_ratio": None, "tubes": 120})
+    assert r.summary["mixture_factor"] is None
+    assert r.summary["surface_vapour_velocity_m_s"] is None
+    assert r.summary["duty_W"] == 2.5e6 and type(r.summary["duty_W"]) is float
+    assert r.summary["circulation_ratio"] is None and r.summary["tubes"] == 120
