@@ -27,23 +27,13 @@ def figure(result, key, system, digits=4):
 
 
 def verdict(result, system: str, *, message: str = "") -> str:
-    """One sentence; ``message`` is the reason a rating failed, when it did."""
+    """One sentence; ``message`` is the reason a rating failed, when it did. The window's
+    answer line and the report's verdict are this same sentence."""
     if result is None or result.status in ("failed", "cancelled"):
         why = message or (result.message if result is not None else "")
         return f"Not rated: {why}" if why else "Not rated yet."
     s = result.summary
-    parts = []
-    over = s.get("over_design_pct")
-    required = figure(result, "required_duty_W", system)
-    if over is not None:
-        target = f"the required duty{f' of {required}' if required else ''}"
-        if over >= 0:
-            parts.append(f"Meets {target} with {over:.0f} % over-design")
-        else:
-            parts.append(f"Falls short of {target} by {-over:.0f} %")
-    else:
-        duty = figure(result, "duty_W", system)
-        parts.append(f"Delivers {duty}" if duty else "Rated")
+    parts = [_duty_answer(result, system)]
     exit_x = s.get("exit_quality")
     if exit_x is not None:
         parts[-1] += f" (exit vapour quality {exit_x:.3g})"
@@ -64,3 +54,24 @@ def verdict(result, system: str, *, message: str = "") -> str:
         where = f", {first} z = {amount(min(placed), 'length', system, 3)}" if placed else ""
         parts.append(f"{n} warning{'s' if n > 1 else ''}{where}")
     return "; ".join(parts) + "."
+
+
+def _duty_answer(result, system) -> str:
+    """Meets the required duty (over-design on the area basis), or the duty the installed
+    area gives and by how much of the duty it falls short — never an area shortfall
+    presented as a duty shortfall."""
+    s = result.summary
+    required = s.get("required_duty_W")
+    if required is None:
+        duty = figure(result, "duty_W", system)
+        return f"Delivers {duty}" if duty else "Rated"
+    target = f"the required duty of {figure(result, 'required_duty_W', system)}"
+    over = s.get("over_design_pct")
+    reached = s.get("performance_duty_W")
+    if over is not None and over >= 0.0:
+        return f"Meets {target} with {over:.0f} % over-design (area basis)"
+    if reached is not None and required > 0.0:
+        short = (1.0 - reached / required) * 100.0
+        return (f"Falls short of {target}: the installed area gives "
+                f"{figure(result, 'performance_duty_W', system)}, {short:.0f} % less")
+    return f"Does not reach {target}"

@@ -141,34 +141,16 @@ def _unit(quantity: str, units: str) -> str:
 
 
 def rating_verdict(case, result, units: str) -> str:
-    """The answer to the case's question in one or two sentences."""
-    s = result.summary
+    """The answer to the case's question: the window's one sentence, and where the
+    findings are."""
+    from ..verdict import verdict
+
     if result.status not in ("ok", "warnings"):
         return f"Not rated ({result.status}): {result.message}"
-    power = lambda key: f"{_num(s.get(key), 'power', units)} {_unit('power', units)}"
-    required = s.get("required_duty_W") or case.required_duty
-    if required:
-        over = s.get("over_design_pct")
-        if over is not None and over >= 0.0:
-            text = (f"Meets the required duty of {_num(required, 'power', units)} "
-                    f"{_unit('power', units)} with an over-design of {format_number(over)} %.")
-        else:
-            reached = s.get("performance_duty_W") or s.get("duty_W")
-            text = (f"Does not reach the required duty of {_num(required, 'power', units)} "
-                    f"{_unit('power', units)}: the installed area gives "
-                    f"{_num(reached, 'power', units)} {_unit('power', units)}.")
-    else:
-        text = f"Duty {power('duty_W')} at a service U of " \
-               f"{_num(s.get('u_service_W_m2K'), 'htc', units)} {_unit('htc', units)}."
-    errors = [w for w in result.warnings if w.severity == "error"]
-    others = [w for w in result.warnings if w.severity != "error"]
-    if errors:
-        text += f" {len(errors)} error-severity finding(s): " + ", ".join(w.code for w in errors) + "."
-    if others:
-        text += f" {len(others)} warning(s) to read below."
-    if not result.warnings:
-        text += " No warnings."
-    return text
+    errors = [w.code for w in result.warnings if w.severity == "error"]
+    tail = (f" Error-severity findings: {', '.join(errors)}." if errors else "")
+    tail += " The findings are listed below." if result.warnings else " No warnings."
+    return verdict(result, units) + tail
 
 
 def _key_figures(case, result, units: str) -> Table:

@@ -1,0 +1,43 @@
+"""The one-line answer that the window shows and the report prints.
+
+Numbers are matched loosely (800 or 800.0): the digits shown are the display's business.
+"""
+import re
+
+from rating.results import RatingWarning, Result
+
+from gui.verdict import verdict
+
+
+def _result(**summary):
+    return Result("E-1", "evaporator", "ok", "rated", summary=summary)
+
+
+def test_a_shortfall_is_stated_in_duty_not_in_area():
+    # Area basis: 0.5 of the area needed is installed (over-design -50 %), but the
+    # installed area still gives 800 kW of the 1,000 kW asked: 20 % short of the duty.
+    # Quoting "short by 50 %" would double the shortfall an engineer passes on.
+    r = _result(required_duty_W=1.0e6, performance_duty_W=0.8e6, over_design_pct=-50.0,
+                duty_W=1.0e6)
+    text = verdict(r, "SI")
+    assert text.startswith("Falls short of the required duty of 1,000 kW")
+    assert re.search(r"gives 800(\.0*)? kW, 20 % less", text) and "50" not in text
+
+
+def test_a_met_duty_names_the_basis_of_the_over_design():
+    r = _result(required_duty_W=1.0e6, performance_duty_W=1.3e6, over_design_pct=31.6)
+    assert "32 % over-design (area basis)" in verdict(r, "SI")
+
+
+def test_without_a_required_duty_the_verdict_gives_the_duty_and_the_first_warning_place():
+    w = RatingWarning("dryout", "warning", "dryout starts", z_m=1.7)
+    r = Result("E-1", "evaporator", "warnings", "rated",
+               summary={"duty_W": 1.429e6, "dryout_z_m": 1.7}, warnings=(w,))
+    text = verdict(r, "SI")
+    assert text.startswith("Delivers 1,429 kW")
+    assert re.search(r"dries out at z = 1\.70* m; 1 warning, at z = 1\.70* m\.$", text)
+
+
+def test_a_failed_rating_says_why():
+    r = Result("E-1", "evaporator", "failed", "the loop does not circulate")
+    assert verdict(r, "SI") == "Not rated: the loop does not circulate"
