@@ -11,6 +11,7 @@ from pathlib import Path
 import CoolProp.CoolProp as CP
 import numpy as np
 import pytest
+from scipy.integrate import trapezoid
 
 import rating
 
@@ -35,19 +36,20 @@ def test_heating_liquid_gives_up_the_duty_the_boiling_side_takes(case):
               - CP.PropsSI("H", "P", hm.pressure, "T", T_out, hm.fluid))
     else:  # a user table: h = integral of cp dT, cp linear between the table's points
         T = np.linspace(T_out, T_in, 2001)
-        dh = np.trapezoid(np.interp(T, hm.fluid["T"], hm.fluid["cp"]), T)
+        dh = trapezoid(np.interp(T, hm.fluid["T"], hm.fluid["cp"]), T)
     given_up = hm.mass_flow * dh
     loss = s.get("heat_loss_W") or 0.0
     assert s["duty_W"] + loss == pytest.approx(given_up, rel=2e-3)
 
 
 @pytest.mark.parametrize("case", [c for c in cases("steam")   # a pure fluid by name
-                                  if c.values[0].type == "evaporator"
+                                  if c.values[0].type in ("evaporator", "kettle")
                                   and isinstance(c.values[0].boiling.fluid, str)
                                   and "&" not in c.values[0].boiling.fluid])
 def test_boiling_stream_takes_the_duty_between_its_own_states(case):
-    # In-tube evaporators on steam: the boiling fluid's enthalpy rise from its inlet state
-    # to the exit pressure and quality (or temperature) the result reports.
+    # In-tube evaporators and kettles on steam: the boiling fluid's enthalpy rise from its
+    # inlet state to the exit pressure and quality (or temperature) the result reports
+    # (a kettle's exit is its vapour space: vapour and overflow liquid at saturation).
     r = rating.rate(case)
     b, s, fl = case.boiling, r.summary, case.boiling.fluid
     if b.inlet_temperature is not None:
@@ -61,3 +63,20 @@ def test_boiling_stream_takes_the_duty_between_its_own_states(case):
         h_out = CP.PropsSI("H", "P", P_out, "T", s["exit_temperature_K"], fl)
     flow = b.mass_flow
     assert s["duty_W"] == pytest.approx(flow * (h_out - h_in), rel=1e-3)
+
+
+@pytest.mark.parametrize("case", list(cases("steam")))
+def test_steam_condensed_carries_the_heating_side_duty(case):
+    # Saturated steam in, condensate out at saturation (or, in a kettle's tubes, steam of
+    # the outlet quality): the steam flow the result reports times the latent heat from
+    # PropsSI is the heating side's duty, and that is the process duty plus the heat loss.
+    r = rating.rate(case)
+    assert r.status in ("ok", "warnings"), r.message
+    s, fl = r.summary, case.heating.fluid
+    P = s["heating_pressure_Pa"]
+    h_fg = CP.PropsSI("H", "P", P, "Q", 1, fl) - CP.PropsSI("H", "P", P, "Q", 0, fl)
+    condensed = 1.0 - (s.get("heating_outlet_quality") or 0.0)
+    assert s["steam_flow_kg_s"] * h_fg * condensed == pytest.approx(
+        s["duty_heating_side_W"], rel=1e-3)
+    assert s["duty_W"] + (s.get("heat_loss_W") or 0.0) == pytest.approx(
+        s["duty_heating_side_W"], rel=1e-3)
