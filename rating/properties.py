@@ -35,6 +35,7 @@ from __future__ import annotations
 import bisect
 import difflib
 import functools
+import json
 import math
 import re
 import threading
@@ -1118,7 +1119,8 @@ def make_fluid(spec) -> Fluid | IncompressibleLiquid | TableLiquid:
     from . import fluid_table  # boiling fluids given as a saturation table or a mixture
 
     if fluid_table.is_saturation_table(spec):
-        return fluid_table.SaturationTable(spec)
+        key = json.dumps(spec, sort_keys=True, default=str)
+        return _shared_table(key, lambda: fluid_table.SaturationTable(spec))
     if isinstance(spec, dict):
         if "table" not in spec:
             raise InputError("a fluid given as a dict needs a 'table' entry", field="fluid")
@@ -1135,9 +1137,30 @@ def make_fluid(spec) -> Fluid | IncompressibleLiquid | TableLiquid:
         cache = _local.fluids = {}
     fluid = cache.get(spec)
     if fluid is None:
-        fluid = cache[spec] = (fluid_table.pseudo_pure(spec) if fluid_table.is_mixture(spec)
-                               else _build(spec))
+        fluid = cache[spec] = (_shared_table(spec, lambda: fluid_table.pseudo_pure(spec))
+                               if fluid_table.is_mixture(spec) else _build(spec))
     return fluid
+
+
+# Saturation tables (a user's, or a mixture's pseudo-pure one: 0.5 to 0.7 s of flashes to
+# build) hold no AbstractState once built, only numbers and a per-pressure cache that is
+# filled idempotently: one per process serves every thread (validation on the desktop's
+# thread, the rating workers), where a per-thread copy was rebuilt on each.
+_tables: dict = {}
+_tables_lock = threading.Lock()
+_TABLES_KEPT = 64   # a user editing a table makes a new one per edit: keep the newest
+
+
+def _shared_table(key: str, build):
+    with _tables_lock:
+        table = _tables.get(key)
+    if table is None:
+        table = build()            # outside the lock: a slow build does not hold others up
+        with _tables_lock:
+            if len(_tables) >= _TABLES_KEPT:
+                _tables.pop(next(iter(_tables)))
+            table = _tables.setdefault(key, table)
+    return table
 
 
 def _build(name: str) -> Fluid | IncompressibleLiquid:
