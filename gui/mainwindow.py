@@ -28,7 +28,6 @@ from .forms import CaseForm
 from .results import CompareTable, FiguresTable, WarningsList
 from .runner import RATING, Runner
 from .sketch import UnitSketch
-from .studies_panel import StudiesPanel
 from .style import STATUS_COLOURS
 from .verdict import verdict
 
@@ -240,8 +239,13 @@ class MainWindow(QMainWindow):
         self.tabs.addTab(self.along_slot, "Along the tube")
         self.tabs.addTab(self.balance_slot, "Circulation")
         self.tabs.addTab(side, "Side by side")
-        self.studies = StudiesPanel.for_window(self)
-        self.tabs.addTab(self.studies, "Studies")
+        self.side_tab = side
+        self._pair = None                  # filled when its tab is shown (see _show_pair)
+        self.tabs.currentChanged.connect(self._tab_chosen)
+        self._studies = None              # made with the plots (it imports matplotlib and scipy)
+        self.studies_slot = QLabel("preparing the studies…")
+        self.studies_slot.setAlignment(Qt.AlignCenter)
+        self.tabs.addTab(self.studies_slot, "Studies")
         split.addWidget(top)
         split.addWidget(self.tabs)
         split.setStretchFactor(0, 0)
@@ -381,7 +385,7 @@ class MainWindow(QMainWindow):
             group.addAction(a)
             self.a_units[s] = a
         m.addSeparator()
-        for i in range(3):
+        for i in range(4):
             self._act(m, f"Show “{self.tabs.tabText(i)}”",
                       lambda _=False, i=i: self.tabs.setCurrentIndex(i), f"Alt+{i + 1}")
         self._act(m, "Compare &with…", lambda: (self.compare_box.setFocus(), self.compare_box.showPopup()),
@@ -417,27 +421,42 @@ class MainWindow(QMainWindow):
         self.runner.progressChanged.connect(self._progress)
         self.case_list.currentRowChanged.connect(self._row_chosen)
         self.case_list.itemDoubleClicked.connect(lambda _it: self.rename_case())
-        self.warnings.positionChosen.connect(lambda z: self.along.mark(z))
         self.compare_box.activated.connect(self._compare_chosen)
 
     # --- plots, made after the first paint ---
     def ensure_plots(self):
         if self._along is not None:
             return
-        from .plots import AlongTubePanel, BalancePanel
+        from .plots import AlongTubeFigure, BalanceFigure, PlotView
 
-        self._along, self._balance = AlongTubePanel(), BalancePanel()
-        current = self.tabs.currentIndex()
-        for i, panel, title in ((0, self._along, "Along the tube"), (1, self._balance, "Circulation")):
-            visible = self.tabs.isTabVisible(i)
-            self.tabs.removeTab(i)
-            self.tabs.insertTab(i, panel, title)
-            self.tabs.setTabVisible(i, visible)
-        self.tabs.setCurrentIndex(current)
-        self.along_slot.deleteLater()
-        self.balance_slot.deleteLater()
+        self._along = PlotView(AlongTubeFigure, title="Along the tube")
+        self._balance = PlotView(BalanceFigure, title="Circulation")
+        self._put_tab(0, self._along, self.along_slot)
+        self._put_tab(1, self._balance, self.balance_slot)
+        self.warnings.positionChosen.connect(self._along.mark)
         self._shown = None
         self._show_answer()
+
+    def _put_tab(self, i, panel, slot):
+        """A panel made late takes the place of its placeholder tab."""
+        current, visible = self.tabs.currentIndex(), self.tabs.isTabVisible(i)
+        title = self.tabs.tabText(i)
+        self.tabs.blockSignals(True)
+        self.tabs.removeTab(i)
+        self.tabs.insertTab(i, panel, title)
+        self.tabs.setTabVisible(i, visible)
+        self.tabs.setCurrentIndex(current)
+        self.tabs.blockSignals(False)
+        slot.deleteLater()
+
+    def ensure_studies(self):
+        """The Studies tab is made when first chosen: it brings scipy with it."""
+        if self._studies is None:
+            from .studies_panel import StudiesPanel
+
+            self.ensure_plots()
+            self._studies = StudiesPanel.for_window(self)
+            self._put_tab(3, self._studies, self.studies_slot)
 
     @property
     def along(self):
@@ -448,6 +467,11 @@ class MainWindow(QMainWindow):
     def balance(self):
         self.ensure_plots()
         return self._balance
+
+    @property
+    def studies(self):
+        self.ensure_studies()
+        return self._studies
 
     def showEvent(self, event):
         super().showEvent(event)
@@ -669,17 +693,29 @@ class MainWindow(QMainWindow):
         shown = (id(result), id(other), id(curve_from), self.system, entry.type, other_name)
         if shown != self._shown:          # a redraw only when what the plots show changed
             self._shown = shown
-            self.along.system = self.system
-            self.along.show_result(result, other, other_name, kettle=entry.type == "kettle")
+            self.along.show_result(result, other, other_name, kettle=entry.type == "kettle",
+                                   system=self.system)
             self.tabs.setTabVisible(1, is_ts)
             if is_ts:
                 self.balance.show_result(curve_from, self.system)
-            self.compare.show_pair(result, other, self.system)
+            self._pair = (result, other, self.system)
+            self._show_pair()
             self.compare_names.setText(
                 f"<b>This case:</b> {entry.name}<br><b>Compared:</b> {other_name}" if other_name else
                 "Choose what to compare with above (another case, or the rating before the last "
                 "edit): both sets of key figures and their differences show here, and its "
                 "profiles show as faint lines on the plots.")
+
+    def _tab_chosen(self, index):
+        if self.tabs.widget(index) is self.studies_slot:
+            QTimer.singleShot(0, lambda: (self.ensure_studies(), self.tabs.setCurrentWidget(self._studies)))
+        self._show_pair()
+
+    def _show_pair(self):
+        """The side-by-side table, filled only while its tab is shown (it costs an edit time)."""
+        if self._pair is not None and self.tabs.currentWidget() is self.side_tab:
+            self.compare.show_pair(*self._pair)
+            self._pair = None
 
     # --- comparison ---------------------------------------------------------------------------
     def _fill_compare(self):
@@ -952,6 +988,9 @@ class MainWindow(QMainWindow):
             event.ignore()
             return
         self.runner.shutdown()
+        if self._along is not None:
+            from .plots import wait_for_drawing
+            wait_for_drawing()
         self._autosave_timer.stop()
         self._drop_autosave()
         files.settings().setValue("geometry", self.saveGeometry())

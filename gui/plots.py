@@ -1,22 +1,37 @@
-"""Plot panels: matplotlib Figures on Qt canvases (never pyplot).
+"""Plot panels: matplotlib Figures (never pyplot), drawn off the GUI thread.
 
-Every artist is made once when the panel is built and updated with ``set_data``
-when a result arrives; only the GUI thread draws. The heated length z is the
-shared horizontal axis of every along-the-tube panel, so one position lines up
-everywhere; a selected warning is a vertical marker on all of them. Values are
-converted to the window's unit system on the way in; labels of lines come from the
-engine's catalogue of profiles, units from ``gui.units``.
+Every artist is made once when a figure is built and updated with ``set_data`` when
+a result arrives. The live panels of the window are ``PlotView`` widgets: the GUI
+thread only queues what to show; one render thread updates the artists and draws
+the figure with the Agg backend into an image, which the widget then paints. A
+draw of six panels takes a good part of a second, and that way it never holds up
+typing (a hidden panel is drawn when it is shown). ``open_window`` shows the same
+figure on an interactive canvas with matplotlib's toolbar, to zoom and pan.
+
+The heated length z is the shared horizontal axis of every along-the-tube panel,
+so one position lines up everywhere; a selected warning is a vertical marker on
+all of them. Values are converted to the window's unit system on the way in; labels
+of lines come from the engine's catalogue of profiles, units from ``gui.units``.
+Legends sit in a band kept free of data at the top of each panel, so they never
+cover a line.
 """
 from __future__ import annotations
 
 import math
+import sys
+import threading
+import traceback
 
 import numpy as np
-from matplotlib.backends.backend_qtagg import FigureCanvasQTAgg, NavigationToolbar2QT
+from matplotlib.backends.backend_agg import FigureCanvasAgg
 from matplotlib.collections import LineCollection, PolyCollection
 from matplotlib.figure import Figure
+from matplotlib.patches import Patch
 from matplotlib.ticker import FuncFormatter, MaxNLocator
-from PySide6.QtWidgets import QVBoxLayout, QWidget
+from PySide6.QtCore import QObject, QRunnable, QThreadPool, Qt, Signal
+from PySide6.QtGui import QImage, QPainter
+from PySide6.QtWidgets import (QDialog, QHBoxLayout, QLabel, QSizePolicy, QToolButton,
+                               QVBoxLayout, QWidget)
 
 from rating import catalogue
 from rating.march import REGIMES
@@ -49,6 +64,7 @@ ALONG_TUBE = (
 )
 
 FONT = 8
+DPI = 100            # figure units: one logical pixel is 1/DPI inch
 CAUTION_SHORT = ("Ebullio: engineering estimates, to be checked by a qualified engineer "
                  "under local codes and licensed practice")
 
@@ -87,87 +103,103 @@ def _runs(z, labels):
     return runs
 
 
-class _Canvas(QWidget):
-    """A figure, its canvas and the navigation toolbar (zoom, pan, save as PNG or SVG)."""
+def style_axes(ax, title):
+    # a title at a fixed height: matplotlib skips its costly search for a free place
+    ax.set_title(title, fontsize=FONT + 1, loc="left", color=INK, y=1.0, pad=3)
+    ax.tick_params(labelsize=FONT)
+    ax.yaxis.set_major_locator(MaxNLocator(4))
+    ax.yaxis.set_major_formatter(FuncFormatter(_tick))
+    ax.xaxis.set_major_locator(MaxNLocator(6))
+    ax.grid(True, color="#dddddd", linewidth=0.6)
+    for side in ("top", "right"):
+        ax.spines[side].set_visible(False)
 
-    # margins in pixels (left, right, top, bottom, between rows, between columns); a fixed
-    # layout, recomputed on resize, is several times cheaper to draw than an automatic one
-    MARGINS = (72, 14, 30, 44, 44, 70)
 
-    def __init__(self, parent=None, toolbar=True):
-        super().__init__(parent)
-        self.figure = Figure()
-        self.canvas = FigureCanvasQTAgg(self.figure)
-        self.canvas.mpl_connect("resize_event", lambda _e: self._relayout())
-        lay = QVBoxLayout(self)
-        lay.setContentsMargins(0, 0, 0, 0)
-        lay.setSpacing(0)
-        if toolbar:
-            self.toolbar = NavigationToolbar2QT(self.canvas, self)
-            self.toolbar.setIconSize(self.toolbar.iconSize() * 0.8)
-            lay.addWidget(self.toolbar)
-        lay.addWidget(self.canvas, 1)
-        # the caution travels with every saved picture
-        self.figure.text(0.995, 0.997, CAUTION_SHORT, ha="right", va="top", fontsize=FONT - 2,
-                         color="#777777")
+def logical_size(figure) -> tuple[float, float]:
+    """The figure's size in logical pixels (a high-density screen draws more dots)."""
+    w, h = figure.get_size_inches()
+    return w * DPI, h * DPI
 
-    def save(self, path):
-        self.figure.savefig(path, dpi=150)
 
-    def redraw(self):
-        """Draw when shown: a panel on a hidden tab waits until its tab is chosen."""
-        if self.canvas.isVisible():
-            self._stale_picture = False
-            self.canvas.draw_idle()
-        else:
-            self._stale_picture = True
+def place_axes(figure, grid, margins):
+    """Margins in pixels (left, right, top, bottom, between rows, between columns): a
+    fixed layout, recomputed on resize, is several times cheaper to draw than an automatic one."""
+    w, h = logical_size(figure)
+    if w < 50 or h < 50:
+        return
+    left, right, top, bottom, hgap, wgap = margins
+    rows, cols = grid
+    cell_h = max(1.0, (h - top - bottom - hgap * (rows - 1)) / rows)
+    cell_w = max(1.0, (w - left - right - wgap * (cols - 1)) / cols)
+    figure.subplots_adjust(left=left / w, right=1 - right / w, top=1 - top / h,
+                           bottom=bottom / h, hspace=hgap / cell_h, wspace=wgap / cell_w)
 
-    def showEvent(self, event):
-        super().showEvent(event)
-        if getattr(self, "_stale_picture", False):
-            self._stale_picture = False
-            self.canvas.draw_idle()
 
-    def _relayout(self):
-        w, h = self.figure.get_size_inches() * self.figure.dpi
-        if w < 50 or h < 50:
+class _Legend:
+    """A legend in a band kept free of data at the top of its axes.
+
+    The axes' upper limit is raised so that the band holds no data; tick labels in the
+    band are left out, so a fraction never seems to reach 1.2.
+    """
+
+    ROW_PX = 14.5          # one row of 7-point text with its spacing, in pixels
+
+    def __init__(self, ax, handles):
+        self.ax, self.handles, self.legend = ax, handles, None
+        self.top = None            # the upper limit of the data, before the band
+        fmt = ax.yaxis.get_major_formatter()
+        ax.yaxis.set_major_formatter(FuncFormatter(
+            lambda v, pos: "" if self.top is not None and v > self.top + 1e-9 * abs(self.top or 1)
+            else fmt(v, pos)))
+
+    def place(self):
+        """After the data limits are set: a legend of the visible lines, and room for it."""
+        ax = self.ax
+        shown = [h for h in self.handles if h.get_visible() and len(h.get_xdata())]
+        if self.legend is not None:
+            self.legend.remove()
+            self.legend = None
+        lo, hi = ax.get_ylim()
+        self.top = hi
+        if len(shown) < 2:          # one line: the panel's title names it
             return
-        left, right, top, bottom, hgap, wgap = self.MARGINS
-        rows, cols = getattr(self, "grid", (1, 1))
-        cell_h = max(1.0, (h - top - bottom - hgap * (rows - 1)) / rows)
-        cell_w = max(1.0, (w - left - right - wgap * (cols - 1)) / cols)
-        self.figure.subplots_adjust(left=left / w, right=1 - right / w, top=1 - top / h,
-                                    bottom=bottom / h, hspace=hgap / cell_h, wspace=wgap / cell_w)
-
-    def _style(self, ax, title):
-        # a title at a fixed height: matplotlib skips its costly search for a free place
-        ax.set_title(title, fontsize=FONT + 1, loc="left", color=INK, y=1.0, pad=3)
-        ax.tick_params(labelsize=FONT)
-        ax.yaxis.set_major_locator(MaxNLocator(4))
-        ax.yaxis.set_major_formatter(FuncFormatter(_tick))
-        ax.xaxis.set_major_locator(MaxNLocator(6))
-        ax.grid(True, color="#dddddd", linewidth=0.6)
-        for side in ("top", "right"):
-            ax.spines[side].set_visible(False)
+        width = ax.get_position().width * logical_size(ax.figure)[0]
+        height = ax.get_position().height * logical_size(ax.figure)[1]
+        longest = max(len(h.get_label()) for h in shown)
+        entry = (longest * 0.56 + 3.6) * (FONT - 1) * DPI / 72     # text, line sample, gaps
+        cols = max(1, min(len(shown), int(width // entry)))
+        rows = math.ceil(len(shown) / cols)
+        band = min(0.6, (rows * self.ROW_PX + 6) / max(height, 1.0))
+        if hi > lo:
+            ax.set_ylim(lo, hi + (hi - lo) * band / (1 - band))
+        self.legend = ax.legend(handles=shown, loc="upper left", ncols=cols, fontsize=FONT - 1,
+                                frameon=False, handlelength=1.8, handletextpad=0.5,
+                                columnspacing=1.0, borderaxespad=0.2, borderpad=0.2)
 
 
-class AlongTubePanel(_Canvas):
+class AlongTubeFigure:
     """The profiles along the heated length, six panels on one shared z axis."""
 
-    def __init__(self, parent=None):
-        super().__init__(parent)
-        self.grid = (3, 2)
-        self.MARGINS = (72, 14, 30, 62, 34, 80)
-        axes = self.figure.subplots(3, 2, sharex=True)
+    grid = (3, 2)
+    MARGINS = (72, 14, 30, 62, 34, 80)
+
+    def __init__(self, figure):
+        self.figure = figure
+        figure.text(0.995, 0.997, CAUTION_SHORT, ha="right", va="top", fontsize=FONT - 2,
+                    color="#777777")
+        axes = figure.subplots(3, 2, sharex=True)
         self.axes = [ax for row in axes for ax in row]
-        self.lines, self.ghosts, self.marks, self.bands, self.pass_marks = {}, {}, [], [], []
+        self.lines, self.ghosts, self.marks, self.bands, self.legends = {}, {}, [], [], []
         for ax, (title, quantity, lines) in zip(self.axes, ALONG_TUBE):
-            self._style(ax, title)
+            style_axes(ax, title)
             ax.quantity = quantity
+            mine = []
             for key, colour, style, width in lines:
                 (line,) = ax.plot([], [], style, color=colour, lw=width, label=_label(key))
                 (ghost,) = ax.plot([], [], style, color=colour, lw=1.0, alpha=0.45, visible=False)
                 self.lines[key], self.ghosts[key] = line, ghost
+                mine.append(line)
+            self.legends.append(_Legend(ax, mine))
             bands = {}
             for regime in REGIMES + ("pool boiling",):
                 coll = PolyCollection([], transform=ax.get_xaxis_transform(), zorder=0,
@@ -177,23 +209,27 @@ class AlongTubePanel(_Canvas):
             self.bands.append(bands)
             mark = ax.axvline(0.0, color=C["vermillion"], lw=1.4, ls=(0, (4, 2)), visible=False, zorder=5)
             self.marks.append(mark)
-            ax.legend(loc="best", fontsize=FONT - 1, frameon=True, framealpha=0.8, edgecolor="none",
-                      handlelength=2.2)
         # one legend of the shaded regions for the whole figure
-        from matplotlib.patches import Patch
         self._regime_handles = {r: Patch(facecolor=REGIME_FILL[r], label=r) for r in REGIME_FILL}
         self.regime_legend = None
-        self.compare_text = self.figure.text(0.005, 0.997, "", ha="left", va="top",
-                                             fontsize=FONT - 1, color="#555555")
+        self.compare_text = figure.text(0.005, 0.997, "", ha="left", va="top",
+                                        fontsize=FONT - 1, color="#555555")
         self.message = self.axes[0].text(0.5, 0.5, "", transform=self.axes[0].transAxes,
                                          ha="center", va="center", fontsize=FONT + 1, color="#555555")
         self.system = "SI"
+        self.mark_z = None
         self._pass_lines = []
         for ax in self.axes:
             coll = LineCollection([], transform=ax.get_xaxis_transform(), colors="#777777",
                                   linewidths=0.9, linestyles="dotted", zorder=1)
             ax.add_collection(coll, autolim=False)
             self._pass_lines.append(coll)
+        self._limits = None
+        self.set_axes_units("SI")
+
+    def relayout(self):
+        place_axes(self.figure, self.grid, self.MARGINS)
+        self._fit()
 
     def set_axes_units(self, system: str, kettle: bool = False):
         self.system = system
@@ -203,9 +239,9 @@ class AlongTubePanel(_Canvas):
             if i >= 4:
                 ax.set_xlabel(f"{zlabel} [{units.unit_label('length', system)}]", fontsize=FONT)
 
-    def show_result(self, result, other=None, other_name="", kettle=False):
+    def show_result(self, result, other=None, other_name="", kettle=False, system="SI"):
         """Update every line from a result (None clears), the ghosts from ``other``."""
-        self.set_axes_units(self.system, kettle)
+        self.set_axes_units(system, kettle)
         profiles = result.profiles if result is not None else {}
         z = _display(profiles.get("z_m", ()), "length", self.system)
         for key, line in self.lines.items():
@@ -254,14 +290,22 @@ class AlongTubePanel(_Canvas):
             lo, hi = float(np.nanmin(z)), float(np.nanmax(z))
             if hi > lo:
                 self.axes[0].set_xlim(lo, hi)
-        self.redraw()
+        self._limits = [ax.get_ylim() for ax in self.axes]
+        self.mark(self.mark_z)
+        self._fit()
+
+    def _fit(self):
+        """The legend bands for the current size (they are a number of pixels high)."""
+        if self._limits is None:
+            return
+        for ax, legend, limits in zip(self.axes, self.legends, self._limits):
+            ax.set_ylim(*limits)
+            legend.place()
 
     def _limit_flux_axis(self):
         """The flux panel scales to the heat flux, showing the critical flux where it is near."""
-        q = self.lines["heat_flux_W_m2"].get_ydata()
-        chf = self.lines["critical_heat_flux_W_m2"].get_ydata()
-        q = np.asarray(q, float)
-        chf = np.asarray(chf, float)
+        q = np.asarray(self.lines["heat_flux_W_m2"].get_ydata(), float)
+        chf = np.asarray(self.lines["critical_heat_flux_W_m2"].get_ydata(), float)
         if q.size and np.isfinite(q).any():
             top = np.nanmax(q)
             if chf.size and np.isfinite(chf).any():
@@ -271,27 +315,27 @@ class AlongTubePanel(_Canvas):
 
     def mark(self, z_m):
         """A vertical marker at z (SI) on every panel; None removes it."""
+        self.mark_z = z_m
         for m in self.marks:
             m.set_visible(z_m is not None)
             if z_m is not None:
                 x = units.to_display(z_m, "length", self.system)
                 m.set_xdata([x, x])
-        self.redraw()
-
-    def line_data(self, key):
-        """The plotted (x, y) of a profile line, in display units (for tests and checks)."""
-        x, y = self.lines[key].get_data()
-        return np.asarray(x, float), np.asarray(y, float)
 
 
-class BalancePanel(_Canvas):
+class BalanceFigure:
     """Thermosiphon: the available head and the loop's losses against circulation."""
 
-    def __init__(self, parent=None):
-        super().__init__(parent)
-        self.ax = self.figure.subplots()
-        self._style(self.ax, "Pressure balance of the loop")
-        ax = self.ax
+    grid = (1, 1)
+    MARGINS = (72, 200, 46, 44, 0, 0)        # the legend stands right of the plot
+
+    def __init__(self, figure):
+        self.figure = figure
+        figure.text(0.995, 0.997, CAUTION_SHORT, ha="right", va="top", fontsize=FONT - 2,
+                    color="#777777")
+        self.ax = ax = figure.subplots()
+        style_axes(ax, "Pressure balance of the loop")
+        ax.set_title("Pressure balance of the loop", loc="left", fontsize=FONT + 1, pad=16, color=INK)
         (self.available,) = ax.plot([], [], "-", color=C["blue"], lw=2.0, label="available head")
         (self.required,) = ax.plot([], [], "-", color=C["vermillion"], lw=2.0, label="losses, total")
         self.parts = {}
@@ -302,10 +346,15 @@ class BalancePanel(_Canvas):
         (self.crossings,) = ax.plot([], [], "o", mfc="white", mec=INK, ms=7, label="balance (unstable)")
         (self.chosen,) = ax.plot([], [], "o", color=INK, ms=8, label="operating point")
         (self.unsolved,) = ax.plot([], [], "x", color="#888888", ms=6, label="not solved")
-        self.note = ax.text(0.02, 0.97, "", transform=ax.transAxes, va="top", fontsize=FONT)
+        # the note sits between the title and the plot, never on the curves
+        self.note = ax.text(0.0, 1.01, "", transform=ax.transAxes, va="bottom", fontsize=FONT,
+                            color="#333333")
         ax.xaxis.set_major_formatter(FuncFormatter(_tick))
         self.legend = None
         self.system = "SI"
+
+    def relayout(self):
+        place_axes(self.figure, self.grid, self.MARGINS)
 
     def show_result(self, result, system):
         self.system = system
@@ -338,9 +387,270 @@ class BalancePanel(_Canvas):
         if self.legend is not None:
             self.legend.remove()
         shown = [a for a in self.ax.get_lines() if len(a.get_xdata())]
-        self.legend = self.ax.legend(handles=shown, loc="upper left", bbox_to_anchor=(0.0, 0.92),
-                                     fontsize=FONT - 1, frameon=True, framealpha=0.85,
-                                     edgecolor="none") if shown else None
+        self.legend = self.ax.legend(handles=shown, loc="upper left", bbox_to_anchor=(1.02, 1.0),
+                                     fontsize=FONT - 1, frameon=False) if shown else None
         self.ax.relim(visible_only=True)
         self.ax.autoscale_view()
-        self.redraw()
+
+
+# --- drawing off the GUI thread ----------------------------------------------------------------
+_POOL: QThreadPool | None = None
+
+
+def render_pool() -> QThreadPool:
+    """One render thread for every panel: figures are drawn one at a time, in order."""
+    global _POOL
+    if _POOL is None:
+        # a busy thread hands the interpreter lock over every millisecond (Python's default
+        # is 5 ms): the GUI thread's turn comes quickly while a figure or a rating runs
+        sys.setswitchinterval(0.001)
+        _POOL = QThreadPool()
+        _POOL.setMaxThreadCount(1)
+    return _POOL
+
+
+def wait_for_drawing(ms: int = 5000) -> bool:
+    """Let a running draw finish (before the window closes)."""
+    return render_pool().waitForDone(ms)
+
+
+class _Signals(QObject):
+    done = Signal(object)          # the drawn QImage, or None when the draw failed
+
+
+class _Draw(QRunnable):
+    """Apply the queued updates to the figure and draw it into an image (render thread)."""
+
+    def __init__(self, view_state, steps, size):
+        super().__init__()
+        self.state, self.steps, self.size = view_state, steps, size
+
+    def run(self):
+        s, image = self.state, None
+        try:
+            with s.lock:
+                if self.size is not None:
+                    w, h, ratio = self.size
+                    s.figure.set_dpi(DPI * ratio)
+                    s.figure.set_size_inches(w / DPI, h / DPI)
+                    s.plot.relayout()
+                for name, args, kwargs in self.steps:
+                    getattr(s.plot, name)(*args, **kwargs)
+                s.agg.draw()
+                buf = s.agg.buffer_rgba()
+                h_px, w_px = buf.shape[:2]
+                image = QImage(bytes(buf), w_px, h_px, 4 * w_px, QImage.Format_RGBA8888).copy()
+                if self.size is not None:
+                    image.setDevicePixelRatio(self.size[2])
+        except Exception:  # a defect in a panel: the window keeps its last picture
+            traceback.print_exc()
+        try:
+            s.signals.done.emit(image)
+        except RuntimeError:       # the window closed meanwhile
+            pass
+
+
+class _ViewState:
+    """What the render thread shares with the widget: the figure, under one lock."""
+
+    def __init__(self, plot_class, signals):
+        self.figure = Figure(dpi=DPI)
+        self.agg = FigureCanvasAgg(self.figure)
+        self.plot = plot_class(self.figure)
+        self.lock = threading.Lock()
+        self.signals = signals
+
+
+class _Picture(QWidget):
+    """Paints the last drawn image of the figure."""
+
+    def __init__(self, view):
+        super().__init__(view)
+        self.view = view
+        self.image: QImage | None = None
+        self.setSizePolicy(QSizePolicy.Expanding, QSizePolicy.Expanding)
+        self.setMinimumSize(320, 240)
+        self.setAttribute(Qt.WA_OpaquePaintEvent)
+
+    def paintEvent(self, _event):
+        p = QPainter(self)
+        p.fillRect(self.rect(), Qt.white)
+        if self.image is not None:
+            # while a new size is being drawn the old picture is stretched to fit
+            p.setRenderHint(QPainter.SmoothPixmapTransform)
+            p.drawImage(self.rect(), self.image)
+        p.end()
+
+    def resizeEvent(self, event):
+        super().resizeEvent(event)
+        self.view._schedule()
+
+    def showEvent(self, event):
+        super().showEvent(event)
+        self.view._schedule()
+
+
+class PlotView(QWidget):
+    """A figure drawn off the GUI thread: calls are queued and the latest of each kind wins."""
+
+    drawn = Signal()
+
+    def __init__(self, plot_class, parent=None, *, title=""):
+        super().__init__(parent)
+        self.plot_class = plot_class
+        self.title = title
+        self._signals = _Signals(self)
+        self._signals.done.connect(self._on_done)
+        self._state = _ViewState(plot_class, self._signals)
+        self._pending: dict = {}        # kind -> (method, args, kwargs), in the order given
+        self._applied: dict = {}        # what the figure shows (replayed by open_window)
+        self._busy = False
+        self._size = None
+        self.system = "SI"
+        lay = QVBoxLayout(self)
+        lay.setContentsMargins(0, 0, 0, 0)
+        lay.setSpacing(0)
+        bar = QHBoxLayout()
+        bar.setContentsMargins(4, 2, 4, 0)
+        self.zoom_button = QToolButton()
+        self.zoom_button.setText("Zoom and pan…")
+        self.zoom_button.setToolTip("Open these plots in their own window, with zoom, pan and save")
+        self.zoom_button.clicked.connect(self.open_window)
+        self.zoom_button.setAutoRaise(True)
+        self.status = QLabel("")
+        self.status.setStyleSheet("color: #777777;")
+        bar.addWidget(self.status, 1)
+        bar.addWidget(self.zoom_button)
+        lay.addLayout(bar)
+        self.picture = _Picture(self)
+        lay.addWidget(self.picture, 1)
+
+    # --- what to show (queued) ---------------------------------------------------------------
+    def _queue(self, kind, method, *args, **kwargs):
+        self._pending.pop(kind, None)
+        self._pending[kind] = (method, args, kwargs)
+        self._schedule()
+
+    def show_result(self, *args, **kwargs):
+        if self.plot_class is AlongTubeFigure:
+            kwargs.setdefault("system", self.system)
+        self._queue("result", "show_result", *args, **kwargs)
+
+    def mark(self, z_m):
+        step = ("mark", (z_m,), {})
+        if self._pending.get("mark", self._applied.get("mark", ("mark", (None,), {}))) != step:
+            self._queue("mark", "mark", z_m)          # a draw only when the marker moves
+
+    # --- drawing ----------------------------------------------------------------------------------
+    def _schedule(self):
+        pic = self.picture
+        if self._busy or not pic.isVisible():
+            return                      # a hidden panel is drawn when it is shown
+        ratio = pic.devicePixelRatioF()
+        size = (max(pic.width(), 50), max(pic.height(), 50), ratio)
+        new_size = size if size != self._size else None
+        if not self._pending and new_size is None:
+            return
+        steps = list(self._pending.values())
+        for kind, step in self._pending.items():
+            self._applied.pop(kind, None)
+            self._applied[kind] = step
+        self._pending.clear()
+        self._size = size
+        self._busy = True
+        self.status.setText("drawing…")
+        render_pool().start(_Draw(self._state, steps, new_size))
+
+    def _on_done(self, image):
+        self._busy = False
+        if image is not None:
+            self.picture.image = image
+            self.picture.update()
+        self.status.setText("")
+        self._schedule()
+        if not self._busy:
+            self.drawn.emit()
+
+    def settled(self) -> bool:
+        """Nothing queued and nothing being drawn: the picture shows the last call."""
+        return not self._busy and not self._pending
+
+    # --- reading and saving (the figure is locked while the render thread uses it) -------------
+    @property
+    def plot(self):
+        return self._state.plot
+
+    @property
+    def figure(self):
+        return self._state.figure
+
+    def line_data(self, key):
+        """The plotted (x, y) of a profile line, in display units (for tests and checks)."""
+        with self._state.lock:
+            x, y = self.plot.lines[key].get_data()
+            return np.asarray(x, float), np.asarray(y, float)
+
+    def save(self, path):
+        with self._state.lock:
+            self.figure.savefig(path, dpi=150)
+
+    def open_window(self):
+        """The same plots on matplotlib's interactive canvas, to zoom, pan and save."""
+        d = QDialog(self.window())
+        d.setWindowTitle(self.title or "Plots")
+        d.setAttribute(Qt.WA_DeleteOnClose)
+        lay = QVBoxLayout(d)
+        lay.setContentsMargins(0, 0, 0, 0)
+        canvas = _Canvas(d, caution=False)       # the figure has its own
+        plot = self.plot_class(canvas.figure)
+        canvas.plot = plot
+        with self._state.lock:
+            steps = list(self._applied.values()) + list(self._pending.values())
+        for name, args, kwargs in steps:
+            getattr(plot, name)(*args, **kwargs)
+        lay.addWidget(canvas)
+        d.resize(max(self.width(), 900), max(self.height(), 620))
+        d.show()
+        return d
+
+
+class _Canvas(QWidget):
+    """A figure on matplotlib's interactive Qt canvas, with the navigation toolbar (zoom, pan,
+    save as PNG or SVG). Drawn on the GUI thread: for the studies and for ``open_window``."""
+
+    MARGINS = (72, 14, 30, 44, 44, 70)
+
+    def __init__(self, parent=None, toolbar=True, caution=True):
+        from matplotlib.backends.backend_qtagg import FigureCanvasQTAgg, NavigationToolbar2QT
+
+        super().__init__(parent)
+        self.figure = Figure()
+        self.canvas = FigureCanvasQTAgg(self.figure)
+        self.plot = None
+        self.canvas.mpl_connect("resize_event", lambda _e: self._relayout())
+        lay = QVBoxLayout(self)
+        lay.setContentsMargins(0, 0, 0, 0)
+        lay.setSpacing(0)
+        if toolbar:
+            self.toolbar = NavigationToolbar2QT(self.canvas, self)
+            self.toolbar.setIconSize(self.toolbar.iconSize() * 0.8)
+            lay.addWidget(self.toolbar)
+        lay.addWidget(self.canvas, 1)
+        if caution:             # the caution travels with every saved picture
+            self.figure.text(0.995, 0.997, CAUTION_SHORT, ha="right", va="top", fontsize=FONT - 2,
+                             color="#777777")
+
+    def save(self, path):
+        self.figure.savefig(path, dpi=150)
+
+    def redraw(self):
+        self.canvas.draw_idle()
+
+    def _relayout(self):
+        if self.plot is not None:
+            self.plot.relayout()
+            return
+        place_axes(self.figure, getattr(self, "grid", (1, 1)), self.MARGINS)
+
+    def _style(self, ax, title):
+        style_axes(ax, title)

@@ -17,7 +17,7 @@ from PySide6.QtCore import QObject, QRunnable, QThreadPool, QTimer, Signal
 
 from rating import catalogue
 
-DEBOUNCE_MS = 300
+DEBOUNCE_MS = 250
 
 # Statuses a case shows in the case list (our words).
 NOT_RATED, RATING, RATED, WARNINGS, FAILED, STALE, INVALID, CANCELLED = (
@@ -52,7 +52,7 @@ class _Job(QRunnable):
         self._last = -1.0
 
     def _progress(self, fraction):
-        if fraction - self._last >= 0.02 or fraction >= 1.0:   # no flood of queued signals
+        if fraction - self._last >= 0.05 or fraction >= 1.0:   # no flood of queued signals
             self._last = fraction
             self.signals.progress.emit(self.entry_id, self.generation, float(fraction))
 

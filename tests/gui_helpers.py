@@ -61,6 +61,14 @@ def open_rated(qtbot, w, path=QUICK):
     return st
 
 
+def plotted(qtbot, w):
+    """Wait until the plots show the last thing asked of them (they are drawn off the GUI
+    thread) and return the along-the-tube figure, whose artists may then be read."""
+    w.tabs.setCurrentWidget(w.along)          # a hidden panel is drawn when it is shown
+    qtbot.waitUntil(lambda: w.along.settled(), timeout=RATING_TIMEOUT_MS)
+    return w.along.plot
+
+
 def set_text(qtbot, w, path, text):
     """Replace a field's text as a user would: select all, type."""
     from PySide6.QtCore import Qt
@@ -74,4 +82,4 @@ def set_text(qtbot, w, path, text):
 
 
 __all__ = ["SAMPLES", "QUICK", "RATING_TIMEOUT_MS", "scratch", "window", "make_window",
-           "open_rated", "set_text", "os"]
+           "open_rated", "plotted", "set_text", "os"]

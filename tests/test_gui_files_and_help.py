@@ -8,7 +8,7 @@ from __future__ import annotations
 import numpy as np
 import pytest
 
-from gui_helpers import (QUICK, RATING_TIMEOUT_MS, make_window, open_rated, scratch,  # noqa: F401
+from gui_helpers import (QUICK, RATING_TIMEOUT_MS, make_window, open_rated, plotted, scratch,  # noqa: F401
                          set_text, window)
 from rating import catalogue
 
@@ -75,17 +75,19 @@ def test_the_rating_before_the_last_edit_is_overlaid_and_its_differences_listed(
     after = w.runner.state(w.current_id).result
     assert w.runner.state(w.current_id).previous is before
     w.compare_to("previous")
-    ghost = w.along.ghosts["t_wall_inner_K"]
+    ghost = plotted(qtbot, w).ghosts["t_wall_inner_K"]
     assert ghost.get_visible()
     np.testing.assert_allclose(ghost.get_ydata(), [units.to_display(v, "temperature", "SI")
                                                    for v in before.profiles["t_wall_inner_K"]])
     label = catalogue.SUMMARY["duty_W"].label
+    w.tabs.setCurrentWidget(w.side_tab)               # the table is filled when it is shown
     row = next(r for r in range(w.compare.rowCount()) if w.compare.item(r, 0).text() == label)
     shown = float(w.compare.item(row, 3).text().split()[0].replace(",", "").replace("−", "-"))
     expected = units.to_display(after.summary["duty_W"], "power", "SI") - \
         units.to_display(before.summary["duty_W"], "power", "SI")
     assert shown == pytest.approx(expected, rel=2e-3, abs=0.5)
     w.compare_to("")
+    plotted(qtbot, w)
     assert not ghost.get_visible()
 
 

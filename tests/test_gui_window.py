@@ -12,8 +12,8 @@ import numpy as np
 import pytest
 from PySide6.QtCore import Qt
 
-from gui_helpers import (QUICK, RATING_TIMEOUT_MS, open_rated, scratch, set_text,  # noqa: F401
-                         window)
+from gui_helpers import (QUICK, RATING_TIMEOUT_MS, open_rated, plotted, scratch,  # noqa: F401
+                         set_text, window)
 from rating import catalogue
 
 FOOT = 0.3048          # m, exact (international yard and pound agreement, 1959)
@@ -24,6 +24,7 @@ def test_edit_rerates_and_the_verdict_and_a_plotted_line_follow(window, qtbot):
     w = window
     before = open_rated(qtbot, w).result
     verdict_before = w.verdict.text()
+    plotted(qtbot, w)
     x0, y0 = w.along.line_data("t_wall_inner_K")
     with qtbot.waitSignal(w.runner.resultArrived, timeout=RATING_TIMEOUT_MS,
                           check_params_cb=lambda i: i == w.current_id):
@@ -35,6 +36,7 @@ def test_edit_rerates_and_the_verdict_and_a_plotted_line_follow(window, qtbot):
     assert after.summary["duty_W"] != before.summary["duty_W"]
     assert w.verdict.text() != verdict_before
     # the plotted wall temperature is the new result's, in the window's units
+    plotted(qtbot, w)
     x1, y1 = w.along.line_data("t_wall_inner_K")
     from gui import units
     expected = [units.to_display(v, "temperature", w.system) for v in after.profiles["t_wall_inner_K"]]
@@ -46,6 +48,7 @@ def test_invalid_entry_shows_its_message_beside_the_field_and_keeps_the_last_res
     w = window
     good = open_rated(qtbot, w).result
     duty_text = w.figures.value("duty_W")
+    plotted(qtbot, w)
     y_before = w.along.line_data("heat_flux_W_m2")[1].copy()
     set_text(qtbot, w, "tubes.length", "-2")
     qtbot.waitUntil(lambda: w.runner.state(w.current_id).status == "invalid input",
@@ -60,6 +63,7 @@ def test_invalid_entry_shows_its_message_beside_the_field_and_keeps_the_last_res
     assert st.result is good and st.stale
     assert "stale" in w.verdict.text()
     assert w.figures.value("duty_W") == duty_text
+    plotted(qtbot, w)
     np.testing.assert_array_equal(w.along.line_data("heat_flux_W_m2")[1], y_before)
 
 
@@ -84,9 +88,10 @@ def test_switching_units_converts_the_display_and_leaves_the_stored_values(windo
     assert not w.doc.dirty
     # the plots follow: the z axis ends at the heated length in the shown unit
     w.set_system("US")
+    figure = plotted(qtbot, w)
     x, _ = w.along.line_data("t_sat_K")
     assert x[-1] == pytest.approx(length / FOOT, rel=1e-6)
-    assert "ft" in w.along.axes[-1].get_xlabel()
+    assert "ft" in figure.axes[-1].get_xlabel()
 
 
 def test_save_and_reopen_give_the_same_project(window, qtbot, tmp_path):
@@ -135,11 +140,11 @@ def test_choosing_a_warning_marks_its_position_on_every_plot(window, qtbot):
     assert placed, "the quick sample should carry a placed warning (dryout)"
     row = next(i for i in range(w.warnings.count()) if f"{placed[0].message}" in w.warnings.item(i).text())
     w.warnings.setCurrentRow(row)
-    for mark in w.along.marks:
+    for mark in plotted(qtbot, w).marks:
         assert mark.get_visible()
         assert mark.get_xdata()[0] == pytest.approx(placed[0].z_m)      # SI/metric: m
     w.warnings.setCurrentRow(-1)
-    assert not any(m.get_visible() for m in w.along.marks)
+    assert not any(m.get_visible() for m in plotted(qtbot, w).marks)
 
 
 def test_cancel_stops_a_running_rating(window, qtbot, monkeypatch):
