@@ -28,16 +28,42 @@ def choice_text(value) -> str:
     return str(value).replace("_", " ")
 
 
+DIGITS = 4          # significant figures shown; the stored SI value keeps every digit
+
+
+def number_text(value: float, digits: int = DIGITS) -> str:
+    """A number as the form shows it, in the user's locale: ``digits`` significant figures
+    (all of the whole part from 1000 up), no trailing zeros, an exponent below 1e-4."""
+    loc = QLocale()
+    if value == 0 or not math.isfinite(value):
+        return loc.toString(float(value), "g", digits)
+    magnitude = math.floor(math.log10(abs(value)))
+    if magnitude < -4:
+        return loc.toString(float(value), "e", digits - 1)
+    text = loc.toString(float(value), "f", max(0, digits - 1 - magnitude))
+    point = loc.decimalPoint()
+    if point in text:
+        text = text.rstrip("0").rstrip(point)
+    return text
+
+
 def format_input(value, field, system) -> str:
-    """The editor text of a stored value: display units, six significant figures."""
+    """The editor text of a stored value: display units, four significant figures. The text
+    is only read back into the case when the user types into it (``Row._typed``)."""
     if value is None:
         return ""
     if isinstance(value, bool) or not isinstance(value, (int, float)):
         return str(value)                  # text kept as typed (an invalid entry)
     if field.kind == "integer" or field.quantity in ("count", "angle"):
         return QLocale().toString(int(value)) if float(value).is_integer() else str(value)
-    shown = units.to_display(float(value), field.quantity, system)
-    return QLocale().toString(float(shown), "g", 6)
+    return number_text(float(units.to_display(float(value), field.quantity, system)))
+
+
+def exact_text(value, field, system) -> str:
+    """The stored value in display units with every significant digit (for the tooltip)."""
+    if isinstance(value, bool) or not isinstance(value, (int, float)) or field.kind != "number":
+        return ""
+    return QLocale().toString(float(units.to_display(float(value), field.quantity, system)), "g", 12)
 
 
 def parse_input(text: str, field, system):
@@ -94,6 +120,8 @@ class Section(QWidget):
         self.button.setToolButtonStyle(Qt.ToolButtonTextBesideIcon)
         self.button.setArrowType(Qt.DownArrow)
         self.button.setStyleSheet("QToolButton { border: none; font-weight: bold; }")
+        self.button.setFocusPolicy(Qt.StrongFocus)
+        self.button.setToolTip("Fold or unfold this group (Space when it has the focus)")
         self.button.toggled.connect(self.set_open)
         line = QFrame(self)
         line.setFrameShape(QFrame.HLine)
@@ -148,8 +176,11 @@ class Row:
         self.label.setBuddy(self.editor)
         g = section.grid
         g.addWidget(self.label, 2 * r, 0)
-        g.addWidget(self.editor, 2 * r, 1)
-        g.addWidget(self.unit, 2 * r, 2)
+        if kind in ("text", "fluid") and not field.choices:     # names: the unit column too
+            g.addWidget(self.editor, 2 * r, 1, 1, 2)
+        else:
+            g.addWidget(self.editor, 2 * r, 1)
+            g.addWidget(self.unit, 2 * r, 2)
         g.addWidget(self.message, 2 * r + 1, 0, 1, 3)
         self._choices: list[str] = []
 
@@ -198,9 +229,14 @@ class Row:
                 text = _table_text(value)
             else:
                 text = format_input(value, f, system)
+            exact = exact_text(value, f, system)
+            if exact and exact != text:
+                self.editor.setToolTip(f"{tooltip}\nstored: {exact} {self.unit.text()}".strip())
             echo = self.form.echo.get(f.path, _NOTHING)
             if self.editor.text() != text and not (echo is not _NOTHING and echo == value):
                 self.editor.setText(text)
+                if not self.editor.hasFocus():
+                    self.editor.setCursorPosition(0)      # a long name shows its beginning
 
     def _fill_choices(self, value, draft):
         f = self.field
@@ -287,6 +323,7 @@ class CaseForm(QScrollArea):
             sec = Section(title, inner)
             self.sections[key] = sec
             lay.addWidget(sec)
+            chain.append(sec.button)                # Tab reaches a folded section's title too
             for r, f in enumerate(members):
                 row = Row(f, sec, r, self)
                 self.rows[f.path] = row
@@ -295,6 +332,7 @@ class CaseForm(QScrollArea):
                     row.editor.editingFinished.connect(lambda p=f.path: self.echo.pop(p, None))
         for a, b in zip(chain, chain[1:]):        # tab order follows the datasheet
             QWidget.setTabOrder(a, b)
+        self.chain = chain
         lay.addStretch(1)
         self.setWidget(inner)
         for key in ("methods", "limits"):          # rarely changed: folded at first

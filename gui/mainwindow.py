@@ -223,6 +223,13 @@ class MainWindow(QMainWindow):
         top.setSizes([470, 330])
         self.tabs = QTabWidget()
         self.tabs.setObjectName("result-tabs")
+        zoom = QToolButton()
+        zoom.setText("Zoom and pan…")
+        zoom.setToolTip("Open the plots shown in a window of their own, with zoom, pan and save (F9)")
+        zoom.setAutoRaise(True)
+        zoom.setFocusPolicy(Qt.NoFocus)        # the View menu has it (F9)
+        zoom.clicked.connect(self.zoom_plots)
+        self.tabs.setCornerWidget(zoom, Qt.TopRightCorner)
         # the plot panels are made just after the window first paints: importing and
         # building matplotlib is the slowest part of starting (see ensure_plots)
         self._along = self._balance = None
@@ -276,10 +283,12 @@ class MainWindow(QMainWindow):
         self.case_buttons = QHBoxLayout()
         self.case_buttons.setSpacing(2)
         bl.addLayout(self.case_buttons)
+        self.case_buttons2 = QHBoxLayout()
+        self.case_buttons2.setSpacing(2)
+        bl.addLayout(self.case_buttons2)
         work.insertWidget(0, cases)
         for i, stretch in enumerate((0, 1, 2)):   # a wide screen widens the datasheet too
             work.setStretchFactor(i, stretch)
-        work.setSizes([200, 400, 680])
         self.work = work
 
         self.units_label = QLabel("")
@@ -349,8 +358,11 @@ class MainWindow(QMainWindow):
         add_menu = QMenu(self)
         for a in self.a_new_case.values():
             add_menu.addAction(a)
+        # two short rows: the case list may be narrow and the plots get the width
+        second = self.case_buttons2
         for a, text in ((None, "New ▾"), (self.a_dup, "Duplicate"),
                         (self.a_up, "▲"), (self.a_down, "▼"), (self.a_delete, "Delete")):
+            row = self.case_buttons if text in ("New ▾", "Duplicate") else second
             b = QToolButton()
             b.setText(text)
             if a is None:
@@ -362,8 +374,9 @@ class MainWindow(QMainWindow):
                 b.setToolTip(f"{a.text().replace('&', '')} ({a.shortcut().toString(QKeySequence.NativeText)})")
                 a.enabledChanged.connect(b.setEnabled)
             b.setFocusPolicy(Qt.NoFocus)          # the same commands are in the Case menu
-            self.case_buttons.addWidget(b)
+            row.addWidget(b)
         self.case_buttons.addStretch(1)
+        second.addStretch(1)
 
         m = mb.addMenu("&Rating")
         self.a_rate = self._act(m, "&Rate now", self.rate_current, "F5")
@@ -390,6 +403,8 @@ class MainWindow(QMainWindow):
                       lambda _=False, i=i: self.tabs.setCurrentIndex(i), f"Alt+{i + 1}")
         self._act(m, "Compare &with…", lambda: (self.compare_box.setFocus(), self.compare_box.showPopup()),
                   "Ctrl+Shift+W")
+        self._act(m, "&Zoom and pan the plots…", self.zoom_plots, "F9",
+                  "Open the plots shown in a window of their own, with zoom, pan and save")
 
         self.report_menu = mb.addMenu("Re&port")
         self._install_report()
@@ -475,12 +490,16 @@ class MainWindow(QMainWindow):
 
     def showEvent(self, event):
         super().showEvent(event)
+
         QTimer.singleShot(150, self.ensure_plots)     # after the first paint, not before it
 
     # --- the case list ---------------------------------------------------------------------
     def _show_cases(self):
         has_cases = bool(self.doc.entries)
         self.pages.setCurrentIndex(1 if has_cases else 0)
+        if has_cases and not getattr(self, "_sized", False):
+            self._sized = True                # the columns' widths, once the area is laid out
+            QTimer.singleShot(0, self._size_columns)
         if not has_cases:
             self.start.refresh()
             self.current_id = None
@@ -503,6 +522,10 @@ class MainWindow(QMainWindow):
         self._fill_compare()
         for a in (self.a_dup, self.a_rename, self.a_up, self.a_down, self.a_delete, self.a_rate):
             a.setEnabled(has_cases)
+
+    def _size_columns(self):
+        w = self.work.width()
+        self.work.setSizes([int(w * 0.14), int(w * 0.30), w - int(w * 0.14) - int(w * 0.30)])
 
     def _paint_item(self, item, entry):
         st = self.runner.state(entry.id)
@@ -866,6 +889,11 @@ class MainWindow(QMainWindow):
             self._act(self.recent_menu, Path(p).name, lambda _=False, p=p: self.open_path(p)).setToolTip(p)
         if not self.recent_menu.actions():
             self.recent_menu.addAction("none yet").setEnabled(False)
+
+    def zoom_plots(self):
+        panel = self.tabs.currentWidget()
+        panel = panel if hasattr(panel, "open_window") else self.along
+        return panel.open_window()
 
     def save_plots(self):
         path, _ = QFileDialog.getSaveFileName(self, "Save plots", str(Path.home() / "profiles.png"),

@@ -6,7 +6,7 @@ thread only queues what to show; one render thread updates the artists and draws
 the figure with the Agg backend into an image, which the widget then paints. A
 draw of six panels takes a good part of a second, and that way it never holds up
 typing (a hidden panel is drawn when it is shown). ``open_window`` shows the same
-figure on an interactive canvas with matplotlib's toolbar, to zoom and pan.
+figure on an interactive canvas with matplotlib's toolbar, to zoom, pan and save.
 
 The heated length z is the shared horizontal axis of every along-the-tube panel,
 so one position lines up everywhere; a selected warning is a vertical marker on
@@ -27,11 +27,10 @@ from matplotlib.backends.backend_agg import FigureCanvasAgg
 from matplotlib.collections import LineCollection, PolyCollection
 from matplotlib.figure import Figure
 from matplotlib.patches import Patch
-from matplotlib.ticker import FuncFormatter, MaxNLocator
+from matplotlib.ticker import Formatter, MaxNLocator
 from PySide6.QtCore import QObject, QRunnable, QThreadPool, Qt, Signal
 from PySide6.QtGui import QImage, QPainter
-from PySide6.QtWidgets import (QDialog, QHBoxLayout, QLabel, QSizePolicy, QToolButton,
-                               QVBoxLayout, QWidget)
+from PySide6.QtWidgets import QDialog, QSizePolicy, QVBoxLayout, QWidget
 
 from rating import catalogue
 from rating.march import REGIMES
@@ -87,10 +86,31 @@ def _display(values, quantity, system):
 
 
 def _tick(v, _pos=None):
-    """Tick labels without an offset or a power of ten hidden above the axis."""
+    """One tick label without an offset or a power of ten hidden above the axis."""
     if v == 0:
         return "0"
     return f"{v:,.0f}" if abs(v) >= 1000 else f"{v:.4g}"
+
+
+class Ticks(Formatter):
+    """Tick labels with as many decimals as the spacing of the ticks needs, the same for all
+    of them (3.012, 3.016, 3.020), thousands grouped, no offset hidden above the axis."""
+
+    values = ()
+
+    def set_locs(self, locs):
+        self.values = [float(x) for x in locs if math.isfinite(x)]
+
+    def __call__(self, v, pos=None):
+        locs = self.values
+        steps = [abs(b - a) for a, b in zip(locs, locs[1:]) if b != a]
+        if not steps:
+            return _tick(v)
+        step = min(steps)
+        decimals = next((d for d in range(10) if abs(step * 10 ** d - round(step * 10 ** d))
+                         < 1e-6 * step * 10 ** d), 10)
+        text = f"{v:,.{decimals}f}"
+        return "0" if float(v) == 0 or text.strip("-0.,") == "" else text
 
 
 def _runs(z, labels):
@@ -108,8 +128,9 @@ def style_axes(ax, title):
     ax.set_title(title, fontsize=FONT + 1, loc="left", color=INK, y=1.0, pad=3)
     ax.tick_params(labelsize=FONT)
     ax.yaxis.set_major_locator(MaxNLocator(4))
-    ax.yaxis.set_major_formatter(FuncFormatter(_tick))
+    ax.yaxis.set_major_formatter(Ticks())
     ax.xaxis.set_major_locator(MaxNLocator(6))
+    ax.xaxis.set_major_formatter(Ticks())
     ax.grid(True, color="#dddddd", linewidth=0.6)
     for side in ("top", "right"):
         ax.spines[side].set_visible(False)
@@ -142,20 +163,25 @@ class _Legend:
     band are left out, so a fraction never seems to reach 1.2.
     """
 
-    ROW_PX = 14.5          # one row of 7-point text with its spacing, in pixels
+    SIZE = FONT - 1.5
+    ROW_PX = 1.45 * SIZE * DPI / 72    # one row of text with its spacing, in pixels
 
     def __init__(self, ax, handles):
         self.ax, self.handles, self.legend = ax, handles, None
         self.top = None            # the upper limit of the data, before the band
-        fmt = ax.yaxis.get_major_formatter()
-        ax.yaxis.set_major_formatter(FuncFormatter(
-            lambda v, pos: "" if self.top is not None and v > self.top + 1e-9 * abs(self.top or 1)
-            else fmt(v, pos)))
+        legend = self
+
+        class InBand(Ticks):                # no tick labels in the band
+            def __call__(self, v, pos=None):
+                top = legend.top
+                return "" if top is not None and v > top + 1e-9 * abs(top or 1) else super().__call__(v, pos)
+        ax.yaxis.set_major_formatter(InBand())
 
     def place(self):
         """After the data limits are set: a legend of the visible lines, and room for it."""
         ax = self.ax
-        shown = [h for h in self.handles if h.get_visible() and len(h.get_xdata())]
+        shown = [h for h in self.handles if h.get_visible()
+                 and np.isfinite(np.asarray(h.get_ydata(), float)).any()]
         if self.legend is not None:
             self.legend.remove()
             self.legend = None
@@ -166,15 +192,16 @@ class _Legend:
         width = ax.get_position().width * logical_size(ax.figure)[0]
         height = ax.get_position().height * logical_size(ax.figure)[1]
         longest = max(len(h.get_label()) for h in shown)
-        entry = (longest * 0.56 + 3.6) * (FONT - 1) * DPI / 72     # text, line sample, gaps
-        cols = max(1, min(len(shown), int(width // entry)))
+        entry = (longest * 0.55 + 2.6) * self.SIZE * DPI / 72     # text, line sample, gaps
+        cols = max(1, min(len(shown), int((width - 4) // entry)))
         rows = math.ceil(len(shown) / cols)
-        band = min(0.6, (rows * self.ROW_PX + 6) / max(height, 1.0))
+        band = min(0.55, (rows * self.ROW_PX + 5) / max(height, 1.0))
         if hi > lo:
             ax.set_ylim(lo, hi + (hi - lo) * band / (1 - band))
-        self.legend = ax.legend(handles=shown, loc="upper left", ncols=cols, fontsize=FONT - 1,
-                                frameon=False, handlelength=1.8, handletextpad=0.5,
-                                columnspacing=1.0, borderaxespad=0.2, borderpad=0.2)
+        self.legend = ax.legend(handles=shown, loc="upper left", ncols=cols, fontsize=self.SIZE,
+                                frameon=False, handlelength=1.6, handletextpad=0.4,
+                                columnspacing=0.8, borderaxespad=0.2, borderpad=0.1,
+                                labelspacing=0.3)
 
 
 class AlongTubeFigure:
@@ -195,7 +222,10 @@ class AlongTubeFigure:
             ax.quantity = quantity
             mine = []
             for key, colour, style, width in lines:
-                (line,) = ax.plot([], [], style, color=colour, lw=width, label=_label(key))
+                label = _label(key)
+                if title == "Temperatures":       # the title says it: "Wall, inside", "Process"
+                    label = label.replace(" temperature", "")
+                (line,) = ax.plot([], [], style, color=colour, lw=width, label=label)
                 (ghost,) = ax.plot([], [], style, color=colour, lw=1.0, alpha=0.45, visible=False)
                 self.lines[key], self.ghosts[key] = line, ghost
                 mine.append(line)
@@ -283,6 +313,7 @@ class AlongTubeFigure:
             coll.set_segments([[(x, 0), (x, 1)] for x in starts])
         self.message.set_text("" if result is not None else "no rating yet")
         for ax in self.axes:
+            ax.set_autoscaley_on(True)        # set_ylim (the legend band) had turned it off
             ax.relim(visible_only=True)
             ax.autoscale_view()
         self._limit_flux_axis()
@@ -349,7 +380,6 @@ class BalanceFigure:
         # the note sits between the title and the plot, never on the curves
         self.note = ax.text(0.0, 1.01, "", transform=ax.transAxes, va="bottom", fontsize=FONT,
                             color="#333333")
-        ax.xaxis.set_major_formatter(FuncFormatter(_tick))
         self.legend = None
         self.system = "SI"
 
@@ -509,19 +539,6 @@ class PlotView(QWidget):
         self.system = "SI"
         lay = QVBoxLayout(self)
         lay.setContentsMargins(0, 0, 0, 0)
-        lay.setSpacing(0)
-        bar = QHBoxLayout()
-        bar.setContentsMargins(4, 2, 4, 0)
-        self.zoom_button = QToolButton()
-        self.zoom_button.setText("Zoom and pan…")
-        self.zoom_button.setToolTip("Open these plots in their own window, with zoom, pan and save")
-        self.zoom_button.clicked.connect(self.open_window)
-        self.zoom_button.setAutoRaise(True)
-        self.status = QLabel("")
-        self.status.setStyleSheet("color: #777777;")
-        bar.addWidget(self.status, 1)
-        bar.addWidget(self.zoom_button)
-        lay.addLayout(bar)
         self.picture = _Picture(self)
         lay.addWidget(self.picture, 1)
 
@@ -558,7 +575,6 @@ class PlotView(QWidget):
         self._pending.clear()
         self._size = size
         self._busy = True
-        self.status.setText("drawing…")
         render_pool().start(_Draw(self._state, steps, new_size))
 
     def _on_done(self, image):
@@ -566,7 +582,6 @@ class PlotView(QWidget):
         if image is not None:
             self.picture.image = image
             self.picture.update()
-        self.status.setText("")
         self._schedule()
         if not self._busy:
             self.drawn.emit()

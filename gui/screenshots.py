@@ -55,8 +55,13 @@ def main(argv=None) -> int:
         ("" if args.font_scale == 1.0 else f"-font{args.font_scale:g}")
     written = []
 
+    def plots_drawn():
+        views = (window._along, window._balance)
+        return all(v.settled() for v in views if v is not None and v.isVisible())
+
     def shot(window, name):
         app.processEvents()
+        _wait(app, plots_drawn)            # the plots are drawn off the GUI thread
         path = out / f"{name}{suffix}.png"
         window.grab().save(str(path))
         written.append(path)

@@ -185,6 +185,7 @@ class UnitSketch(QWidget):
 
         def y(z):
             return bottom - z * s
+        labels = []                     # (baseline, text), drawn last without overlapping
         p.setPen(QPen(STEEL, 1.8))
         p.setBrush(QColor("#f4f6f8"))
         p.drawEllipse(shell)
@@ -198,8 +199,7 @@ class UnitSketch(QWidget):
             p.restore()
             p.setPen(QPen(QColor(C["blue"]), 1.4, Qt.DashLine))
             p.drawLine(QPointF(shell.left() - 6, y(weir)), QPointF(shell.right() + 10, y(weir)))
-            p.setPen(INK)
-            p.drawText(QPointF(shell.right() + 14, y(weir) + 4), f"weir {self._len(weir)}")
+            labels.append((y(weir) + 4, f"weir {self._len(weir)}"))
         if port:
             p.setPen(QPen(STEEL, 1.0, Qt.DotLine))
             p.setBrush(Qt.NoBrush)
@@ -209,11 +209,25 @@ class UnitSketch(QWidget):
                 p.setPen(QPen(QColor(C["vermillion"]), 1.4))
                 p.setBrush(QColor(C["vermillion"]).lighter(190))
                 p.drawEllipse(QRectF(cx - bundle * s / 2, y(b0 + bundle), bundle * s, bundle * s))
-                p.setPen(INK)
-                p.drawText(QPointF(shell.right() + 14, y(b0 + bundle) + 4),
-                           f"bundle {self._len(bundle)}")
+                labels.append((y(b0 + bundle) + 4, f"bundle {self._len(bundle)}"))
         p.setPen(INK)
-        p.drawText(QPointF(shell.right() + 14, shell.top() + 12), f"kettle {self._len(D)}")
+        labels.append((shell.top() + 12, f"kettle {self._len(D)}"))
         if port:
-            p.drawText(QPointF(shell.right() + 14, bottom - 2), f"port {self._len(port)}")
+            labels.append((bottom - 2, f"port {self._len(port)}"))
+        _spread_labels(p, shell.right() + 14, labels, box.top() + 12, bottom - 2)
         return True
+
+
+def _spread_labels(p, x, labels, top, bottom):
+    """Draw labels at their heights, moved apart where two would overlap (kept in order)."""
+    step = p.fontMetrics().height()
+    labels = sorted(labels)
+    ys = []
+    for target, _ in labels:
+        ys.append(max(target, ys[-1] + step) if ys else max(target, top))
+    if ys and ys[-1] > bottom:          # pushed past the bottom: move the crowd up
+        ys[-1] = bottom
+        for i in range(len(ys) - 2, -1, -1):
+            ys[i] = min(ys[i], ys[i + 1] - step)
+    for yy, (_, text) in zip(ys, labels):
+        p.drawText(QPointF(x, yy), text)

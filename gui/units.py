@@ -116,7 +116,8 @@ def format_value(value_si, quantity: str, system: str, digits: int = 4) -> str:
 
 
 def format_number(value, digits: int = 4) -> str:
-    """A number to ``digits`` significant figures, thousands grouped, no exponent below 1e7."""
+    """A number to ``digits`` significant figures (every digit of its whole part), thousands
+    grouped, no exponent from 1e-4 to 1e15 (a duty of 21,168,472 Btu/h reads as such)."""
     if value is None:
         return "not computed"
     if isinstance(value, bool) or not isinstance(value, (int, float)):
@@ -126,7 +127,7 @@ def format_number(value, digits: int = 4) -> str:
     if value == 0 or not math.isfinite(value):
         return f"{value:g}"
     magnitude = math.floor(math.log10(abs(value)))
-    if magnitude >= 7 or magnitude < -4:
+    if magnitude >= 15 or magnitude < -4:
         return f"{value:.{digits - 1}e}"
     decimals = max(0, digits - 1 - magnitude)
     return f"{value:,.{decimals}f}"

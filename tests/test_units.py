@@ -53,3 +53,6 @@ def test_not_computed_is_never_zero():
 def test_four_significant_figures_with_grouping():
     assert units.format_value(1234567.0, "power", "SI") == "1,235 kW"
     assert units.format_number(0.012345) == "0.01235"
+    # large figures: the whole part, grouped, never an exponent a reader must decode
+    assert units.format_number(21168472.0) == "21,168,472"
+    assert units.format_number(1234.5) == "1,234"
