@@ -1,6 +1,6 @@
-"""The studies tab: a sweep, the spread between methods, or the operating envelope of the
-case on the datasheet, run beside the window with progress and a stop, plotted, and
-exported as CSV.
+"""The studies tab: a sweep, the spread between methods, the operating envelope, or the fit
+to plant data of the case on the datasheet, run beside the window with progress and a
+stop, plotted, and exported as CSV.
 
 The engine does the work (``rating.studies``) on a process pool made once for the
 panel (the points of a study run side by side on every core); a worker thread waits
@@ -23,11 +23,12 @@ from rating import catalogue, studies
 from rating.cli import CAUTION
 from rating.errors import InputError
 
-from . import units
+from . import studies_fit, units
 from .plots import FONT, _Canvas, _display
 from .style import INK, OKABE_ITO as C
 
-KINDS = (("sweep", "Sweep"), ("spread", "Method spread"), ("envelope", "Operating envelope"))
+KINDS = (("sweep", "Sweep"), ("spread", "Method spread"), ("envelope", "Operating envelope"),
+         ("fit", "Fit to plant data"))
 FAMILY_TITLES = {"flow_boiling": "Flow boiling", "nucleate_boiling": "Nucleate boiling",
                  "dryout": "Dryout / critical flux", "two_phase_friction": "Two-phase friction",
                  "void_fraction": "Void fraction"}
@@ -145,6 +146,7 @@ class StudiesPanel(QWidget):
         self._cancel = threading.Event()
         self._thread = None
         self.study, self.kind, self.system = None, None, "SI"
+        self._tolerances = {}          # the fit's tolerance of each measured key (SI)
         self._filled_for = None
         self.signals = _Signals()
         self.signals.progress.connect(self._on_progress)
@@ -230,7 +232,8 @@ class StudiesPanel(QWidget):
         el.addWidget(self.required, 2, 1)
         el.addWidget(self.required_unit, 2, 2)
         el.setColumnStretch(3, 1)
-        for w in (sweep, spread, env):
+        self.fit_setup = studies_fit.FitSetup()
+        for w in (sweep, spread, env, self.fit_setup):
             self.setup.addWidget(w)
         self.setup.setSizePolicy(QSizePolicy.Preferred, QSizePolicy.Maximum)
         lay.addWidget(self.setup)
@@ -246,8 +249,15 @@ class StudiesPanel(QWidget):
         bar.addWidget(self.progress, 1)
         bar.addWidget(self.note, 2)
         lay.addLayout(bar)
+        # the fit's answer in words: the fitted values, then why to distrust them if so
+        self.fit_verdict = QLabel("")
+        self.fit_verdict.setObjectName("fit-verdict")
+        self.fit_verdict.setWordWrap(True)
+        self.fit_verdict.setTextInteractionFlags(Qt.TextSelectableByMouse)
+        self.fit_verdict.setVisible(False)
+        lay.addWidget(self.fit_verdict)
 
-        split = QSplitter(Qt.Vertical)
+        self.split = split = QSplitter(Qt.Vertical)
         split.setChildrenCollapsible(False)
         self.plot = _Canvas()
         self.ax = self.plot.figure.subplots()
@@ -282,8 +292,24 @@ class StudiesPanel(QWidget):
         self.env_x.fill(case, self.system, level)
         self.env_y.fill(case, self.system, "heating.pressure")
         self.required_unit.setText(units.unit_label("power", self.system))
+        self.fit_setup.fill(case, self.system)
+        self._fill_families(case)
         self._fill_show(case)
         self._kind_changed()
+
+    def _fill_families(self, case):
+        """The method families whose choice this exchanger type has."""
+        keep = self.family_box.currentData()
+        self.family_box.blockSignals(True)
+        self.family_box.clear()
+        for key in studies.FAMILIES:
+            try:
+                studies.spread.family_path(key, case.type)
+            except InputError:
+                continue
+            self.family_box.addItem(FAMILY_TITLES[key], key)
+        self.family_box.setCurrentIndex(max(self.family_box.findData(keep), 0))
+        self.family_box.blockSignals(False)
 
     def _fill_show(self, case):
         keep = self.show_box.currentData()
@@ -305,7 +331,7 @@ class StudiesPanel(QWidget):
                 QSizePolicy.Preferred, QSizePolicy.Maximum if i == index else QSizePolicy.Ignored)
         self.setup.setCurrentIndex(index)
         self.setup.adjustSize()
-        self.show_box.setEnabled(kind != "envelope")
+        self.show_box.setEnabled(kind in ("sweep", "spread"))
 
     # --- running -------------------------------------------------------------------------------
     def executor(self):
@@ -332,6 +358,8 @@ class StudiesPanel(QWidget):
         self.run_button.setEnabled(False)
         self.stop_button.setEnabled(True)
         self.note.setText("rating… the first study also starts the worker processes")
+        self.progress.setFormat("%v of %m points")
+        self.progress.setMaximum(100)
         self.progress.setValue(0)
         executor = self.executor()
         signals, cancel = self.signals, self._cancel
@@ -356,6 +384,14 @@ class StudiesPanel(QWidget):
         if kind == "spread":
             family = self.family_box.currentData()
             return lambda **kw: studies.method_spread(case, family, **kw)
+        if kind == "fit":
+            measured, fitted = self.fit_setup.measurements(), self.fit_setup.parameters()
+            self._tolerances = {m.key: m.tolerance for m in measured}
+
+            def job(executor, cancel, progress):
+                return studies.fit(case, measured, fitted, executor=executor, cancel=cancel,
+                                   progress=lambda n: progress(n, 0))   # no total known
+            return job
         x, y = self.env_x.variation(), self.env_y.variation()
         text = self.required.text().strip().replace(",", "")
         try:
@@ -373,6 +409,10 @@ class StudiesPanel(QWidget):
         return self._thread is not None
 
     def _on_progress(self, done, total):
+        if total == 0:     # a fit: the number of ratings it needs is not known beforehand
+            self.progress.setMaximum(0)
+            self.note.setText(f"fitting… {done} ratings so far")
+            return
         self.progress.setMaximum(total)
         self.progress.setValue(done)
 
@@ -384,6 +424,23 @@ class StudiesPanel(QWidget):
             self.note.setText(f"The study stopped: {error}")
             return
         self.kind, self.study = outcome
+        self.fit_verdict.setVisible(self.kind == "fit")
+        if self.kind == "fit":
+            self.progress.setFormat("%v ratings")
+            self.progress.setMaximum(max(1, self.study.ratings))
+            self.progress.setValue(self.study.ratings)
+            self.note.setText({"fitted": "the fit meets the measurements",
+                               "poor": "the fit misses the measurements",
+                               "unidentifiable": "the measurements do not fix every input",
+                               }.get(self.study.status, ""))
+            self.split.setSizes([400, 180])
+            self.fit_verdict.setText(studies_fit.verdict(self.study, self.system))
+            colour = {"fitted": "#1d6b3a"}.get(self.study.status, "#a03800")
+            self.fit_verdict.setStyleSheet(f"color: {colour}; font-weight: bold")
+            self.export_button.setEnabled(self.study.status not in ("failed", "cancelled"))
+            self._draw()
+            self._fill_table()
+            return
         points = self.study.points
         bad = [p for p in points if not p.rated]
         self.note.setText(f"{len(points) - len(bad)} of {len(points)} points rated"
@@ -404,17 +461,35 @@ class StudiesPanel(QWidget):
     def _draw(self):
         if self.study is None:
             return
+        axes = self._axes(2 if self.kind == "fit" else 1)
         ax = self.ax
-        ax.clear()
-        self.plot._style(ax, "")
-        # room on the left for the methods' names, on the right for a legend
-        self.plot.MARGINS = (230, 30, 26, 46, 40, 60) if self.kind == "spread" \
-            else (74, 190, 26, 46, 40, 60)
-        title = {"sweep": self._draw_sweep, "spread": self._draw_spread,
-                 "envelope": self._draw_envelope}[self.kind]()
+        for a in axes:
+            a.clear()
+            self.plot._style(a, "")
+        # room on the left for the methods' names, on the right for a legend; between the
+        # fit's two plots for the measurements' names
+        self.plot.MARGINS = {"spread": (230, 30, 26, 46, 40, 60),
+                             "fit": (74, 24, 26, 46, 40, 250)}.get(self.kind,
+                                                                  (74, 190, 26, 46, 40, 60))
+        if self.kind == "fit":
+            title = studies_fit.draw(axes, self.study, self.system)
+        else:
+            title = {"sweep": self._draw_sweep, "spread": self._draw_spread,
+                     "envelope": self._draw_envelope}[self.kind]()
         ax.set_title(title, fontsize=FONT + 1, loc="left", color=INK)
         self.plot._relayout()
         self.plot.canvas.draw_idle()
+
+    def _axes(self, count):
+        """One plot, or the fit's two side by side; made again only when the count changes."""
+        figure = self.plot.figure
+        if len(figure.axes) != count:
+            for a in list(figure.axes):
+                figure.delaxes(a)
+            made = figure.subplots(1, count)
+            self.plot.grid = (1, count)
+            self.ax = made if count == 1 else made[0]
+        return list(figure.axes)
 
     def _result_axis(self):
         key = self.show_box.currentData() or "duty_W"
@@ -534,6 +609,10 @@ class StudiesPanel(QWidget):
     # --- the table and the export ------------------------------------------------------------
     def _fill_table(self):
         s, system = self.study, self.system
+        if self.kind == "fit":
+            heads, rows = studies_fit.table_rows(s, self._tolerances, system)
+            self._set_table(heads, rows)
+            return
         if self.kind == "spread":
             names, keys = ["method"], list(s.keys)
         else:
@@ -570,6 +649,20 @@ class StudiesPanel(QWidget):
                 self.table.setItem(r, c, item)
         self.table.resizeColumnsToContents()
 
+    def _set_table(self, heads, rows):
+        """Plain rows of text; numbers (every column but the first and the last) right."""
+        self.table.setColumnCount(len(heads))
+        self.table.setHorizontalHeaderLabels(heads)
+        self.table.setRowCount(len(rows))
+        for r, cells in enumerate(rows):
+            for c, text in enumerate(cells):
+                item = QTableWidgetItem(str(text))
+                item.setToolTip(str(text))
+                if 0 < c < len(cells) - 1:
+                    item.setTextAlignment(Qt.AlignRight | Qt.AlignVCenter)
+                self.table.setItem(r, c, item)
+        self.table.resizeColumnsToContents()
+
     def save(self, path):
         """The window's "Save plots" while this tab is shown: the study's plot."""
         self.plot.save(path)
@@ -586,7 +679,7 @@ class StudiesPanel(QWidget):
         """Write the study's table (SI, with the caution on the first line)."""
         from rating.studies.export import write_csv
 
-        keys = [] if self.kind == "spread" else [
+        keys = [] if self.kind in ("spread", "fit") else [
             k for k, f in catalogue.SUMMARY.items() if self.study.case_type in f.types]
         try:
             write_csv(self.study, path, keys, CAUTION)

@@ -366,3 +366,11 @@ def test_a_spread_of_fewer_than_two_methods_is_refused(kettle, monkeypatch):
     with pytest.raises(InputError, match="only palen_1983 applies") as err:
         method_spread(kettle, "dryout", executor=InlineExecutor())
     assert err.value.field == "family" and "no spread" in str(err.value)
+
+
+def test_a_cancelled_fit_says_so(chiller):
+    result = fit(chiller, [Measurement("duty_W", 4e4, 1e3)],
+                 [Parameter("boiling.fouling_resistance", 0.0, 2e-3)], executor=InlineExecutor(),
+                 cancel=lambda: True)
+    assert result.status == "cancelled"
+    assert result.uncertainty == {"boiling.fouling_resistance": None}

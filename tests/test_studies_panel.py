@@ -139,3 +139,117 @@ def test_the_window_has_a_studies_tab_on_its_current_case(qtbot, scratch):
         assert panel.study.case_name == case and len(panel.study.points) == 2
     finally:
         w.runner.shutdown()
+
+
+# --- fit to plant data -------------------------------------------------------------------
+
+TRUE_FOULING = 4e-4     # m^2*K/W, as in test_studies.py (a TEMA-range value, common practice)
+
+
+@pytest.fixture(scope="module")
+def chiller():
+    return rating.load_project(SAMPLES / "chiller-evaporator.ebullio").cases[0]
+
+
+@pytest.fixture(scope="module")
+def plant(chiller):
+    """The 'plant': the chiller rated with a known boiling-side fouling resistance."""
+    from rating import catalogue
+    return rating.rate(catalogue.with_value(chiller, "boiling.fouling_resistance", TRUE_FOULING))
+
+
+def fit_panel(qtbot, chiller):
+    panel = make_panel(qtbot, chiller, system="SI")
+    panel.kind_box.setCurrentIndex(panel.kind_box.findData("fit"))
+    assert panel.setup.currentWidget() is panel.fit_setup
+    return panel
+
+
+def type_into(qtbot, field, text):
+    field.clear()
+    qtbot.keyClicks(field, text)
+
+
+def run_by_button(qtbot, panel):
+    from PySide6.QtCore import Qt
+    qtbot.mouseClick(panel.run_button, Qt.LeftButton)
+    qtbot.waitUntil(lambda: not panel.busy(), timeout=TIMEOUT_MS)
+
+
+def test_fit_in_the_tab_recovers_a_known_fouling(qtbot, chiller, plant):
+    """The chilled-water outlet temperature of a rating made with R_f = 4e-4 m^2K/W is typed
+    in °C (T[°C] = T[K] - 273.15, by definition) with a 0.1 K tolerance; the boiling-side
+    fouling is ticked by default with the bounds 0 to 0.002 m^2K/W. test_studies.py
+    justifies 1e-6 m^2K/W for the engine's answer (60 times below the uncertainty this
+    tolerance gives); the tab shows it to the decimal place of its uncertainty."""
+    panel = fit_panel(qtbot, chiller)
+    setup = panel.fit_setup
+    assert setup.checks["boiling.fouling_resistance"].isChecked()
+    assert [w.text() for w in setup.bounds["boiling.fouling_resistance"]] == ["0", "0.002000"]
+    measured = plant.summary["heating_outlet_temperature_K"] - 273.15
+    type_into(qtbot, setup.values["heating_outlet_temperature_K"], repr(measured))
+    type_into(qtbot, setup.tolerances["heating_outlet_temperature_K"], "0.1")
+    run_by_button(qtbot, panel)
+    assert panel.study.status == "fitted"
+    assert panel.study.values["boiling.fouling_resistance"] == pytest.approx(TRUE_FOULING,
+                                                                             abs=1e-6)
+    # what the engineer reads: the table's fitted row and the verdict above the plot
+    row = [panel.table.item(0, c).text() for c in range(panel.table.columnCount())]
+    assert row[0].startswith("Fouling resistance, boiling side")
+    shown, spread = row[1], row[2]
+    last_place = 10.0 ** -len(shown.split(".")[1])
+    assert float(shown) == pytest.approx(TRUE_FOULING, abs=1e-6 + last_place / 2)
+    assert 0.0 < float(spread) < TRUE_FOULING
+    assert row[-1] == "fitted" and row[5] == "m²·K/W"
+    assert panel.fit_verdict.isVisible()
+    assert panel.fit_verdict.text().startswith(f"Fitted: Fouling resistance, boiling side = "
+                                               f"{shown} ± {spread} m²·K/W")
+    # the plots: the misfit's minimum is at the fitted value, the measurement within 1 tolerance
+    left, right = panel.plot.figure.axes
+    fitted_line = [ln for ln in left.get_lines() if ln.get_label() == "fitted"]
+    assert fitted_line and fitted_line[0].get_xdata()[0] == pytest.approx(TRUE_FOULING, abs=1e-6)
+    (dot,) = [ln for ln in right.get_lines() if ln.get_marker() == "o"]
+    assert abs(dot.get_xdata()[0]) < 1.0
+
+
+def test_fit_in_the_tab_says_when_the_fouling_is_not_identifiable(qtbot, chiller, plant):
+    """The boiling R134a leaves at saturation: its exit temperature barely moves with the
+    fouling (test_studies.py), so a 0.5 K tolerance cannot fix it; the tab says so."""
+    panel = fit_panel(qtbot, chiller)
+    setup = panel.fit_setup
+    type_into(qtbot, setup.values["exit_temperature_K"],
+              repr(plant.summary["exit_temperature_K"] - 273.15))
+    type_into(qtbot, setup.tolerances["exit_temperature_K"], "0.5")
+    run_by_button(qtbot, panel)
+    assert panel.study.status == "unidentifiable"
+    assert panel.fit_verdict.text().startswith("Not identifiable: Fouling resistance, boiling "
+                                               "side = ")
+    assert "not determined" in panel.fit_verdict.text()
+    assert "not identifiable" in panel.fit_verdict.text().split("\n", 1)[1]
+    assert panel.table.item(0, 2).text() == "not determined"
+    assert panel.table.item(0, panel.table.columnCount() - 1).text() == "not identifiable"
+
+
+def test_fit_set_up_refuses_a_measurement_without_its_tolerance(qtbot, chiller):
+    panel = fit_panel(qtbot, chiller)
+    type_into(qtbot, panel.fit_setup.values["duty_W"], "40")
+    run_by_button(qtbot, panel)
+    assert panel.study is None
+    assert "Duty: give its tolerance" in panel.note.text()
+    type_into(qtbot, panel.fit_setup.tolerances["duty_W"], "1")
+    panel.fit_setup.checks["boiling.fouling_resistance"].setChecked(False)
+    run_by_button(qtbot, panel)
+    assert panel.study is None and "tick at least one input" in panel.note.text()
+
+
+def test_stop_ends_a_fit_as_stopped(qtbot, chiller, plant):
+    panel = fit_panel(qtbot, chiller)
+    setup = panel.fit_setup
+    type_into(qtbot, setup.values["heating_outlet_temperature_K"],
+              repr(plant.summary["heating_outlet_temperature_K"] - 273.15))
+    type_into(qtbot, setup.tolerances["heating_outlet_temperature_K"], "0.1")
+    panel.run()
+    panel.stop()
+    qtbot.waitUntil(lambda: not panel.busy(), timeout=TIMEOUT_MS)
+    assert panel.study.status == "cancelled"
+    assert panel.fit_verdict.text().startswith("Stopped")

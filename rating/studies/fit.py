@@ -27,7 +27,7 @@ from scipy import optimize, stats
 
 from .. import catalogue
 from ..errors import InputError
-from .execution import Job, executor_scope, rate_points
+from .execution import CANCELLED, Job, executor_scope, rate_points
 from .sweep import case_at, check_path
 
 #: Results that can be measured on a running unit, in the catalogue's keys.
@@ -61,7 +61,7 @@ class Parameter:
 
 @dataclass(frozen=True)
 class Fit:
-    status: str                     # "fitted", "poor", "unidentifiable" or "failed"
+    status: str                     # "fitted", "poor", "unidentifiable", "failed", "cancelled"
     message: str
     values: dict                    # path -> fitted value (SI)
     uncertainty: dict               # path -> one standard deviation, None if not determined
@@ -73,6 +73,9 @@ class Fit:
     case: object = None             # the case with the fitted values
     result: object = None           # its rating
     correlation: list = field(default_factory=list)
+    #: every rating the fit made: (values by path, sum of squared normalised misfits,
+    #: None where a measured result was not computed), in the order of the values
+    trials: tuple = ()
 
     def to_dict(self) -> dict:
         return {"study": "fit", "status": self.status, "message": self.message,
@@ -166,6 +169,10 @@ def fit(case, measurements, parameters, *, executor=None, increments=None, cance
                                               max_nfev=60)
             jac = jacobian(solution.x)
         except _Stop as stop:
+            if stop.point.status == CANCELLED:
+                return Fit("cancelled", "the fit was stopped before it finished", stop.values,
+                           {p: None for p in paths}, {p: False for p in paths},
+                           ratings=count[0])
             where = ", ".join(f"{p} = {v:.4g}" for p, v in stop.values.items())
             reason = stop.point.message or "a measured result was not computed"
             return Fit("failed", f"the rating failed at {where}: {reason}",
@@ -264,4 +271,14 @@ def _report(case, measurements, parameters, solution, jac, rated, ratings, value
     fitted_case = case_at(case, values)
     return Fit(status, message, values, uncertainty, identifiable, tuple(residuals), chi2,
                tuple(warnings), ratings, fitted_case, point.result if point else None,
-               correlation)
+               correlation, _trials(rated, measurements, values_at))
+
+
+def _trials(rated, measurements, values_at) -> tuple:
+    out = []
+    for u in sorted(rated):
+        model = [rated[u].value(m.key) for m in measurements]
+        misfit = None if any(v is None for v in model) else float(sum(
+            ((v - m.value) / m.tolerance) ** 2 for v, m in zip(model, measurements)))
+        out.append((values_at(np.array(u)), misfit))
+    return tuple(out)

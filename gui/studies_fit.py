@@ -1,0 +1,306 @@
+"""The fit to plant data in the studies tab: what was measured on the running unit (with
+its tolerance), which inputs to fit between which bounds, and the answer in words, in a
+table and in two plots.
+
+The engine fits (``rating.studies.fit``); this module only reads the typed values in
+the window's units, converts them to SI, and shows what comes back.
+"""
+from __future__ import annotations
+
+import math
+
+import numpy as np
+from PySide6.QtWidgets import (QCheckBox, QGridLayout, QGroupBox, QHBoxLayout, QLabel,
+                               QLineEdit, QWidget)
+
+from rating import catalogue, studies
+from rating.studies.fit import MISSED
+
+from . import units
+from .plots import FONT, _display
+from .style import INK, OKABE_ITO as C
+
+#: Inputs a fit may set: a fouling resistance or a multiplier on a film coefficient.
+PARAMETERS = ("boiling.fouling_resistance", "heating.fouling_resistance",
+              "boiling.htc_factor", "heating.htc_factor")
+#: Fitted first when nothing else is chosen: the usual question of a unit in service.
+DEFAULT_PARAMETER = "boiling.fouling_resistance"
+
+VERDICTS = {"fitted": "Fitted", "poor": "Poor fit", "unidentifiable": "Not identifiable",
+            "failed": "The fit failed", "cancelled": "Stopped"}
+
+
+def tolerance_quantity(quantity: str) -> str:
+    """A tolerance of a temperature is a temperature difference (K, not °C)."""
+    return "temperature_difference" if quantity == "temperature" else quantity
+
+
+def measurable(case) -> list[str]:
+    """Results of this case that can be measured on the running unit (steam flow only
+    when the heating medium is steam)."""
+    return [k for k in studies.MEASURABLE if case.type in catalogue.SUMMARY[k].types
+            and (k != "steam_flow_kg_s" or case.heating.kind == "steam")]
+
+
+def _number(text: str):
+    text = text.strip().replace(",", "")
+    return float(text) if text else None
+
+
+class FitSetup(QWidget):
+    """The measured values with their tolerances, and the inputs to fit with their bounds,
+    in display units."""
+
+    def __init__(self, parent=None):
+        super().__init__(parent)
+        lay = QHBoxLayout(self)
+        lay.setContentsMargins(0, 0, 0, 0)
+        self.measured_box = QGroupBox("Measured on the unit (leave empty what was not measured)")
+        self.fit_box = QGroupBox("Inputs to fit, between bounds")
+        self.measured_grid = QGridLayout(self.measured_box)
+        self.fit_grid = QGridLayout(self.fit_box)
+        for grid in (self.measured_grid, self.fit_grid):
+            grid.setContentsMargins(6, 2, 6, 2)
+            grid.setVerticalSpacing(2)
+        lay.addWidget(self.measured_box, 3)
+        lay.addWidget(self.fit_box, 2)
+        self.values, self.tolerances, self.checks, self.bounds = {}, {}, {}, {}
+        self._built_for = None
+        self.system = "SI"
+
+    def fill(self, case, system):
+        """Rows for this case's measurable results and fittable inputs; typed values are
+        kept while the exchanger type and the unit system stay the same."""
+        key = (case.type, case.heating.kind, system)
+        if key == self._built_for:
+            return
+        self._built_for, self.system = key, system
+        for grid in (self.measured_grid, self.fit_grid):
+            while grid.count():
+                grid.takeAt(0).widget().deleteLater()
+        self.values, self.tolerances, self.checks, self.bounds = {}, {}, {}, {}
+        g = self.measured_grid
+        for c, text in enumerate(("Result", "Measured", "", "± tolerance (1 s.d.)", "")):
+            if text:
+                g.addWidget(_small(text), 0, c)
+        for r, k in enumerate(measurable(case), 1):
+            f = catalogue.SUMMARY[k]
+            value, tol = QLineEdit(), QLineEdit()
+            value.setObjectName(f"measured-{k}")
+            tol.setObjectName(f"tolerance-{k}")
+            for w in (value, tol):
+                w.setMaximumWidth(110)
+            g.addWidget(QLabel(f.label), r, 0)
+            g.addWidget(value, r, 1)
+            g.addWidget(QLabel(units.unit_label(f.quantity, system)), r, 2)
+            g.addWidget(tol, r, 3)
+            g.addWidget(QLabel(units.unit_label(tolerance_quantity(f.quantity), system)), r, 4)
+            self.values[k], self.tolerances[k] = value, tol
+        g.setColumnStretch(0, 1)
+        g = self.fit_grid
+        for c, text in enumerate(("Input", "from", "to", "")):
+            if text:
+                g.addWidget(_small(text), 0, c)
+        paths = [p for p in PARAMETERS if p in studies.study_paths(case)]
+        for r, p in enumerate(paths, 1):
+            f = catalogue.input_field(p)
+            check = QCheckBox(f.label)
+            check.setObjectName(f"fit-{p}")
+            check.setChecked(p == DEFAULT_PARAMETER)
+            low, high = QLineEdit(), QLineEdit()
+            lo, hi = f.usual if f.usual else f.hard
+            for w, v in ((low, lo), (high, hi)):
+                w.setMaximumWidth(80)
+                w.setText(units.format_number(units.to_display(v, f.quantity, system)))
+            g.addWidget(check, r, 0)
+            g.addWidget(low, r, 1)
+            g.addWidget(high, r, 2)
+            g.addWidget(QLabel(units.unit_label(f.quantity, system)), r, 3)
+            self.checks[p], self.bounds[p] = check, (low, high)
+        g.setColumnStretch(0, 1)
+        g.setRowStretch(len(paths) + 1, 1)
+
+    def measurements(self) -> list:
+        """The typed measurements in SI; ValueError names the field and what it needs."""
+        out = []
+        for k, box in self.values.items():
+            f = catalogue.SUMMARY[k]
+            try:
+                value, tol = _number(box.text()), _number(self.tolerances[k].text())
+            except ValueError:
+                raise ValueError(f"{f.label}: the measured value and its tolerance must be "
+                                 "numbers") from None
+            if value is None:
+                if tol is not None:
+                    raise ValueError(f"{f.label}: a tolerance without a measured value")
+                continue
+            if tol is None or not tol > 0.0:
+                raise ValueError(f"{f.label}: give its tolerance (one standard deviation), "
+                                 f"> 0 {units.unit_label(tolerance_quantity(f.quantity), self.system)}")
+            out.append(studies.Measurement(
+                k, units.from_display(value, f.quantity, self.system),
+                units.from_display(tol, tolerance_quantity(f.quantity), self.system)))
+        if not out:
+            raise ValueError("Fit: type at least one measured value and its tolerance")
+        return out
+
+    def parameters(self) -> list:
+        """The checked inputs with their bounds in SI; ValueError names the field."""
+        out = []
+        for p, check in self.checks.items():
+            if not check.isChecked():
+                continue
+            f = catalogue.input_field(p)
+            try:
+                lo, hi = (units.from_display(float(w.text().replace(",", "")), f.quantity,
+                                             self.system) for w in self.bounds[p])
+            except ValueError:
+                raise ValueError(f"{f.label}: the bounds must be numbers") from None
+            if not lo < hi:
+                raise ValueError(f"{f.label}: the bound 'from' must be below 'to'")
+            out.append(studies.Parameter(p, lo, hi))
+        if not out:
+            raise ValueError("Fit: tick at least one input to fit")
+        return out
+
+
+def _small(text):
+    label = QLabel(text)
+    label.setStyleSheet("color: #555555")
+    return label
+
+
+# --- the answer ---------------------------------------------------------------------------
+
+def verdict(fit, system: str) -> str:
+    """The answer in words: each fitted value with its uncertainty, then every warning."""
+    if fit.status in ("failed", "cancelled"):
+        return f"{VERDICTS[fit.status]}: {fit.message}"
+    parts = []
+    for p, v in fit.values.items():
+        f = catalogue.input_field(p)
+        unit = units.unit_label(f.quantity, system)
+        u = fit.uncertainty[p]
+        shown = units.to_display(v, f.quantity, system)
+        if u is None:
+            parts.append(f"{f.label} = {units.format_number(shown)} {unit} "
+                         "(not determined by these measurements)")
+        else:
+            value, spread = value_and_uncertainty(shown, _difference(u, f.quantity, system))
+            parts.append(f"{f.label} = {value} ± {spread} {unit}")
+    head = f"{VERDICTS[fit.status]}: " + "; ".join(parts)
+    if fit.status == "fitted":
+        head += " (± one standard deviation, from the tolerances)"
+    return "\n".join([head] + [f"• {w}" for w in fit.warnings])
+
+
+def value_and_uncertainty(value: float, u: float) -> tuple[str, str]:
+    """A value and its uncertainty written to the same decimal place, the uncertainty
+    with two significant figures (0.000400 ± 0.000042)."""
+    if not (u > 0.0 and math.isfinite(u) and math.isfinite(value)):
+        return units.format_number(value), units.format_number(u)
+    places = 1 - math.floor(math.log10(u))
+    if places > 8 or places < -6:          # far from 1: powers of ten read better
+        return f"{value:.{max(2, places + math.floor(math.log10(abs(value) or 1)))}e}", \
+            f"{u:.1e}"
+    places = max(places, 0)
+    return f"{value:.{places}f}", f"{u:.{places}f}"
+
+
+def _difference(value, quantity, system):
+    """An uncertainty in display units: a difference, so no offset (°C, °F)."""
+    return units.to_display(value, tolerance_quantity(quantity), system)
+
+
+def table_rows(fit, tolerances: dict, system: str) -> tuple[list[str], list[list[str]]]:
+    """Header and rows of the fit's table: the fitted inputs, then the measurements
+    (``tolerances``: the tolerance of each measured key, SI)."""
+    head = ["Quantity", "Value", "± (1 s.d.)", "Model", "Model − measured [tolerances]",
+            "Unit", "Verdict"]
+    rows = []
+    for p, v in fit.values.items():
+        f = catalogue.input_field(p)
+        u = fit.uncertainty[p]
+        word = ("not identifiable" if not fit.identifiable[p] else "fitted") \
+            if fit.status not in ("failed", "cancelled") else fit.status
+        shown = units.to_display(v, f.quantity, system)
+        value, spread = (units.format_number(shown), "not determined") if u is None else \
+            value_and_uncertainty(shown, _difference(u, f.quantity, system))
+        rows.append([f"{f.label} (fitted)", value, spread, "", "",
+                     units.unit_label(f.quantity, system), word])
+    for key, measured, model, r in fit.residuals:
+        f = catalogue.SUMMARY[key]
+        tol = tolerances.get(key)
+        rows.append([f"{f.label} (measured)",
+                     units.format_number(units.to_display(measured, f.quantity, system)),
+                     "" if tol is None else units.format_number(
+                         _difference(tol, f.quantity, system)),
+                     "not computed" if model is None else
+                     units.format_number(units.to_display(model, f.quantity, system)),
+                     f"{0.0 if abs(r) < 0.005 else r:+.2f}",    # no "-0.00"
+                     units.unit_label(f.quantity, system),
+                     "within its tolerance" if abs(r) <= 1.0 else
+                     f"within {MISSED:g} tolerances" if abs(r) <= MISSED else "missed"])
+    return head, rows
+
+
+def draw(axes, fit, system: str) -> str:
+    """The misfit against the fitted input (left) and each measurement's miss in
+    tolerances (right); returns the title."""
+    left, right = axes
+    paths = list(fit.values)
+    first = paths[0]
+    fq = catalogue.input_field(first).quantity
+    n = max(1, len(fit.residuals))
+    trials = [(vals, m) for vals, m in fit.trials if m is not None]
+    if len(paths) == 1 and trials:
+        trials.sort(key=lambda t: t[0][first])
+        x = _display([t[0][first] for t in trials], fq, system)
+        rms = np.array([math.sqrt(m / n) for _, m in trials])
+        left.plot(x, rms, "o-", color=C["blue"], ms=3.5, lw=1.2, label="ratings of the fit")
+        left.set_ylabel("Misfit, RMS [tolerances]", fontsize=FONT)
+        left.axhline(1.0, color="#777777", ls="--", lw=0.9)
+        left.text(0.99, 1.0, "one tolerance", transform=left.get_yaxis_transform(),
+                  ha="right", va="bottom", fontsize=FONT - 1, color="#555555")
+        left.set_ylim(bottom=0.0)
+    elif len(paths) >= 2 and trials:
+        second = paths[1]
+        sq = catalogue.input_field(second).quantity
+        x = _display([t[0][first] for t in trials], fq, system)
+        y = _display([t[0][second] for t in trials], sq, system)
+        left.plot(x, y, ".", color="#999999", ms=4, label="ratings of the fit")
+        f2 = catalogue.input_field(second)
+        left.set_ylabel(f"{f2.label} [{units.unit_label(sq, system)}]", fontsize=FONT)
+    v = units.to_display(fit.values[first], fq, system)
+    u = fit.uncertainty.get(first)
+    if fit.status not in ("failed", "cancelled"):
+        if u is not None:
+            du = _difference(u, fq, system)
+            left.axvspan(v - du, v + du, color=C["green"], alpha=0.2, lw=0,
+                         label="fitted ± one standard deviation")
+        left.axvline(v, color=C["green"] if u is not None else C["vermillion"], lw=1.8,
+                     label="fitted" if u is not None else "fitted, not identifiable")
+        left.legend(fontsize=FONT - 1, frameon=False, loc="upper center")
+    f1 = catalogue.input_field(first)
+    left.set_xlabel(f"{f1.label} [{units.unit_label(fq, system)}]", fontsize=FONT)
+
+    r = [res[3] for res in fit.residuals]
+    ypos = np.arange(len(r))[::-1]
+    right.axvspan(-1.0, 1.0, color=C["green"], alpha=0.18, lw=0)
+    right.axvspan(-MISSED, -1.0, color=C["yellow"], alpha=0.2, lw=0)
+    right.axvspan(1.0, MISSED, color=C["yellow"], alpha=0.2, lw=0)
+    right.axvline(0.0, color=INK, lw=0.8)
+    for y, ri in zip(ypos, r):
+        missed = abs(ri) > MISSED
+        right.plot(ri, y, "o", ms=8, color=C["vermillion"] if missed else C["blue"])
+    limit = max([3.0] + [abs(ri) * 1.15 for ri in r])
+    right.set_xlim(-limit, limit)
+    right.set_yticks(ypos)
+    right.set_yticklabels([catalogue.SUMMARY[res[0]].label for res in fit.residuals],
+                          fontsize=FONT)
+    right.set_ylim(-0.7, len(r) - 0.3)
+    right.set_xlabel("Model − measured [tolerances]", fontsize=FONT)
+    right.set_title("Each measurement (green: within one tolerance, yellow: two)",
+                    fontsize=FONT,
+                    loc="left", color=INK)
+    return f"{VERDICTS[fit.status]}: misfit against the fitted input"
