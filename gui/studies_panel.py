@@ -29,9 +29,6 @@ from .style import INK, OKABE_ITO as C
 
 KINDS = (("sweep", "Sweep"), ("spread", "Method spread"), ("envelope", "Operating envelope"),
          ("fit", "Fit to plant data"))
-FAMILY_TITLES = {"flow_boiling": "Flow boiling", "nucleate_boiling": "Nucleate boiling",
-                 "dryout": "Dryout / critical flux", "two_phase_friction": "Two-phase friction",
-                 "void_fraction": "Void fraction"}
 # Colour of each limit of the envelope (its boundary and the points that fail it first).
 LIMIT_COLOURS = {"duty": C["blue"], "critical_flux": C["vermillion"],
                  "circulation": C["purple"], "stability": C["orange"],
@@ -211,9 +208,7 @@ class StudiesPanel(QWidget):
         spread = QWidget()
         pl = QHBoxLayout(spread)
         pl.setContentsMargins(0, 0, 0, 0)
-        self.family_box = QComboBox()
-        for key in studies.FAMILIES:
-            self.family_box.addItem(FAMILY_TITLES[key], key)
+        self.family_box = QComboBox()     # filled for the case's type (refresh)
         pl.addWidget(QLabel("Every applicable method of"))
         pl.addWidget(self.family_box)
         pl.addStretch(1)
@@ -298,16 +293,13 @@ class StudiesPanel(QWidget):
         self._kind_changed()
 
     def _fill_families(self, case):
-        """The method families whose choice this exchanger type has."""
+        """The method families whose choice this exchanger type has, by the catalogue's
+        label of the input each sets."""
         keep = self.family_box.currentData()
         self.family_box.blockSignals(True)
         self.family_box.clear()
-        for key in studies.FAMILIES:
-            try:
-                studies.spread.family_path(key, case.type)
-            except InputError:
-                continue
-            self.family_box.addItem(FAMILY_TITLES[key], key)
+        for key, label in studies.spread.families_of(case.type):
+            self.family_box.addItem(label, key)
         self.family_box.setCurrentIndex(max(self.family_box.findData(keep), 0))
         self.family_box.blockSignals(False)
 

@@ -78,6 +78,9 @@ def _parser():
     p.add_argument("--report", metavar="OUT", help="write a rating report, OUT.pdf or OUT.html")
     p.add_argument("--units", choices=REPORT_UNITS, default="SI",
                    help="unit system of the report (default SI)")
+    p.add_argument("--spread", metavar="FAMILY",
+                   help="with --report: add a section with each case rated by every "
+                        "applicable method of FAMILY (the families of ebullio-study --spread)")
     return p
 
 
@@ -293,6 +296,13 @@ def _check_report(args, report_writer) -> None:
     """--report: a writer to write it and a path it can be written to, before any rating."""
     from .errors import InputError
 
+    if args.spread is not None:
+        from .studies.spread import FAMILIES  # only now: the studies bring scipy in
+
+        if args.report is None:
+            raise InputError("--spread: adds a section to the report; give --report too")
+        if args.spread not in FAMILIES:
+            raise InputError(f"--spread {args.spread}: choose one of {', '.join(FAMILIES)}")
     if args.report is None:
         return
     if report_writer is None:
@@ -338,7 +348,10 @@ def _run(args, report_writer=None) -> int:
                               f"({exc.strerror or exc}); the results above are complete")
     if args.report is not None:
         try:
-            report_writer(project, cases, results, args.report, args.units, source_path=args.file)
+            extra = {} if args.spread is None else {"spread": args.spread,
+                                                     "increments": args.increments}
+            report_writer(project, cases, results, args.report, args.units,
+                          source_path=args.file, **extra)
         except OSError as exc:
             return refuse(f"--report {args.report}: could not be written ({exc.strerror or exc}); "
                           "the results above are complete")
@@ -347,7 +360,8 @@ def _run(args, report_writer=None) -> int:
 
 def main(argv=None, report_writer=None) -> int:
     """Run the command. ``report_writer(project, cases, results, path, units, source_path)``
-    writes ``--report``; without one, ``--report`` is refused."""
+    writes ``--report`` (with ``spread`` and ``increments`` when ``--spread`` is given);
+    without one, ``--report`` is refused."""
     args = _parser().parse_args(argv)
     return guarded(lambda: _run(args, report_writer))
 

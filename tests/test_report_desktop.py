@@ -57,3 +57,29 @@ def test_a_report_is_written_from_the_window(window, qtbot, tmp_path, monkeypatc
     name = w.doc.entry(w.current_id).name
     assert name in text and "qualified engineer" in text
     assert f"Page 1 of {len(pypdf.PdfReader(target).pages)}" in text
+
+
+def test_a_report_with_a_method_spread_is_written_from_the_window(window, qtbot, tmp_path,
+                                                                 monkeypatch):
+    """The family is picked from those the case's type chooses (the catalogue's labels);
+    the report then has the spread section with the case's own method marked once."""
+    from PySide6.QtWidgets import QFileDialog, QInputDialog
+
+    w = window
+    open_rated(qtbot, w)
+    target = tmp_path / "with-spread.html"
+    offered = {}
+
+    def pick(parent, title, label, items, current=0, editable=False):
+        offered["items"] = list(items)
+        return "Void fraction", True
+
+    monkeypatch.setattr(QInputDialog, "getItem", staticmethod(pick))
+    monkeypatch.setattr(QFileDialog, "getSaveFileName",
+                        staticmethod(lambda *a, **k: (str(target), "HTML page (*.html)")))
+    _action(w, "with a method spread").trigger()
+    assert target.exists() and not w.errors
+    assert "Flow boiling coefficient" in offered["items"] and "Void fraction" in offered["items"]
+    text = target.read_text(encoding="utf-8")
+    assert "Spread between methods: void fraction" in text
+    assert text.count("(the case's)") == 1

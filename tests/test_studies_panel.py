@@ -253,3 +253,20 @@ def test_stop_ends_a_fit_as_stopped(qtbot, chiller, plant):
     qtbot.waitUntil(lambda: not panel.busy(), timeout=TIMEOUT_MS)
     assert panel.study.status == "cancelled"
     assert panel.fit_verdict.text().startswith("Stopped")
+
+
+def test_a_kettle_offers_its_own_families_and_spreads_its_bundle_limits(qtbot):
+    """A kettle chooses a nucleate boiling method and a bundle maximum-flux method, nothing
+    in-tube (the catalogue's types); its dryout spread compares the two Palen methods."""
+    kettle = rating.load_project(SAMPLES / "harrow-creek-kettles.ebullio").cases[0]
+    panel = make_panel(qtbot, kettle)
+    offered = [panel.family_box.itemText(i) for i in range(panel.family_box.count())]
+    assert offered == ["Nucleate boiling coefficient", "Bundle maximum flux"]
+    panel.kind_box.setCurrentIndex(panel.kind_box.findData("spread"))
+    panel.family_box.setCurrentIndex(panel.family_box.findData("dryout"))
+    panel.show_box.setCurrentIndex(panel.show_box.findData("max_chf_ratio"))
+    run(qtbot, panel)
+    assert [m[0] for m in panel.study.methods] == ["palen_small_1964", "palen_1983"]
+    assert panel.table.rowCount() == 2
+    dots = [ln for ln in panel.ax.get_lines() if ln.get_marker() == "o"]
+    assert len(dots) == 2 and dots[0].get_xdata()[0] != dots[1].get_xdata()[0]

@@ -9,11 +9,13 @@ from __future__ import annotations
 import sys
 
 
-def _writer(project, cases, results, path, units, source_path=None):
+def _writer(project, cases, results, path, units, source_path=None, spread=None,
+            increments=None):
     from .writer import write_report
 
     try:
-        write_report(project, cases, path, units, source_path, results=results)
+        write_report(project, cases, path, units, source_path, results=results, spread=spread,
+                     increments=increments)
     except ValueError as exc:
         from rating.errors import InputError
         raise InputError(f"--report: {exc}") from None

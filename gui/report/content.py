@@ -22,7 +22,7 @@ from rating.cli import CAUTION
 from rating.vendor import TOLERANCE_BASIS, compare, describe, deviation_text
 from gui.units import SYSTEM_TITLES, format_number, to_display, unit_label
 
-from .figures import case_figures
+from .figures import case_figures, png, spread_figure, spread_reference
 
 #: Summary keys that only a required duty gives a meaning to.
 _DUTY_CHECK_KEYS = ("required_duty_W", "performance_duty_W", "required_area_m2",
@@ -305,8 +305,64 @@ _PROVENANCE = {"case_sha256": "inputs SHA-256 (the case as rated)", "rated_at": 
 _SHOWN_ELSEWHERE = {"ebullio_version", "coolprop_version", "methods"}
 
 
-def build(project, cases, results, units: str, source_path=None, when=None) -> Report:
-    """The report of ``cases`` (rated as ``results``) in the unit system ``units``."""
+def _spread_section(rep: Report, i: int, spread, units: str) -> None:
+    """The optional section: the case rated with every applicable method of one family.
+
+    ``spread`` is a ``rating.studies.Spread``, or the reason (text) it was not computed."""
+    if isinstance(spread, str):
+        rep.keep("h2", "Spread between methods")
+        rep.add(f"<p>Not computed: {esc(spread)}.</p>")
+        return
+    family = INPUT_LABELS.get(spread.path, spread.path)
+    rep.keep("h2", f"Spread between methods: {esc(family.lower())}")
+    rep.add(f"<p>The case rated once with each method of this family that applies to it "
+            f"({len(spread.methods)}), everything else unchanged: how much of the answer "
+            "rests on the choice of correlation.</p>")
+    # a result no method computed (the over-design without a required duty) is left out
+    keys = [k for k in spread.keys if any(v is not None for v in spread.values(k))]
+    head = '<th width="30%">Method</th>' + "".join(
+        f"<th>{esc(SUMMARY[k].label)}" + (f" [{esc(_unit(SUMMARY[k].quantity, units))}]"
+                                          if _unit(SUMMARY[k].quantity, units) else "")
+        + "</th>" for k in keys) + "<th>Status</th>"
+    body = []
+    for (name, title, _), point in zip(spread.methods, spread.points):
+        own = " <b>(the case's)</b>" if name == spread.chosen else ""
+        cells = "".join(f'<td class="num">{esc(_num(point.value(k), SUMMARY[k].quantity, units))}'
+                        "</td>" for k in keys)
+        status = point.status + (f": {point.message}" if point.message else "")
+        body.append(f"<td>{esc(title)}{own}</td>{cells}<td>{esc(status)}</td>")
+    spans = []
+    for k in keys:
+        r = spread.range(k)
+        # a spread is a difference: no offset (a temperature difference in °C is in K)
+        quantity = {"temperature": "temperature_difference"}.get(SUMMARY[k].quantity,
+                                                                  SUMMARY[k].quantity)
+        spans.append(f'<td class="num"><b>{esc(_num(r["spread"], quantity, units))}</b></td>')
+    body.append("<td><b>Spread (highest − lowest)</b></td>" + "".join(spans) + "<td></td>")
+    rep.add(Table(head, body))
+    fig = spread_figure(spread)
+    if fig is not None:
+        name = f"fig-{i}-spread.png"
+        rep.images[name] = png(fig)
+        _, reference = spread_reference(spread)
+        rep.keep("p", f'<img src="{name}" width="660"/><br/><span class="small">'
+                      f"Figure {i}.S. Each method's results as a difference from {reference}, "
+                      "in per cent of its value (the over-design, itself a percentage, is in "
+                      "the table).</span>", ' align="center"')
+    references = "; ".join(f"{title}: {ref}" for _, title, ref in spread.methods if ref)
+    if references:
+        rep.add(f'<p class="small">{esc(references)}</p>')
+
+
+INPUT_LABELS = {f.path: f.label for f in INPUTS}
+
+
+def build(project, cases, results, units: str, source_path=None, when=None,
+          spreads=None) -> Report:
+    """The report of ``cases`` (rated as ``results``) in the unit system ``units``.
+
+    ``spreads``, when given, has one item per case: a ``rating.studies.Spread`` (a
+    section with its table and figure), the reason it was not computed, or None."""
     when = when or _dt.datetime.now(_dt.timezone.utc)
     title = project.title or (Path(source_path).stem if source_path else "Ebullio project")
     comparisons = [compare(c, r) for c, r in zip(cases, results)]
@@ -358,6 +414,8 @@ def build(project, cases, results, units: str, source_path=None, when=None) -> R
             rep.images[name] = data
             rep.keep("p", f'<img src="{name}" width="660"/><br/><span class="small">'
                           f"Figure {i}.{n}. {caption}</span>", ' align="center"')
+        if spreads is not None and spreads[i - 1] is not None:
+            _spread_section(rep, i, spreads[i - 1], units)
         rep.keep("h2", "Inputs")
         _datasheet(case, units, rep)
         rep.keep("h2", "Methods and references")

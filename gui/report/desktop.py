@@ -23,6 +23,8 @@ def add_to_window(window) -> None:
     menu = window.report_menu
     menu.addAction("Write a report of this &case…", lambda: write_from_window(window, False))
     menu.addAction("Write a report of &every case…", lambda: write_from_window(window, True))
+    menu.addAction("Write a report of this case with a method &spread…",
+                   lambda: write_with_spread(window))
     menu.addSeparator()
     menu.addAction("Add &vendor figures to this case", lambda: add_vendor_figures(window))
     menu.addAction("Vendor figures against the &rating…", lambda: show_comparison(window))
@@ -50,7 +52,33 @@ def _case_and_result(window, entry):
     return case, result or rating.rate(case)
 
 
-def write_from_window(window, every: bool) -> Path | None:
+def write_with_spread(window) -> Path | None:
+    """The current case's report with the spread between the methods of a family chosen
+    from those its type has."""
+    from PySide6.QtWidgets import QInputDialog
+
+    from rating.errors import InputError
+
+    entry = _entry(window)
+    if entry is None:
+        return None
+    try:
+        case = catalogue.draft_to_case(entry.draft)
+    except (InputError, KeyError, ValueError, TypeError):
+        return write_from_window(window, False)       # says why the case cannot be rated
+    from rating.studies.spread import families_of
+
+    families = families_of(case.type)
+    labels = [label for _, label in families]
+    label, ok = QInputDialog.getItem(window, "Method spread",
+                                     "Rate the case once with every method of:", labels, 0,
+                                     False)
+    if not ok or label not in labels:
+        return None
+    return write_from_window(window, False, spread=families[labels.index(label)][0])
+
+
+def write_from_window(window, every: bool, spread=None) -> Path | None:
     from PySide6.QtCore import Qt
     from PySide6.QtWidgets import QApplication, QFileDialog, QMessageBox
 
@@ -75,7 +103,7 @@ def write_from_window(window, every: bool) -> Path | None:
         # The file's hash names the inputs only when the window shows what is saved.
         source = window.doc.path if window.doc.path and not window.doc.dirty else None
         write_report(project, [c for c, _ in pairs], path, window.system, source,
-                     results=[r for _, r in pairs])
+                     results=[r for _, r in pairs], spread=spread)
     except (InputError, OSError, ValueError) as exc:
         show = getattr(window, "show_error", None)   # the window's own way to say it
         if show is not None:

@@ -294,3 +294,65 @@ def case_figures(case, result, units: str) -> list[tuple[str, bytes]]:
         if fig is not None:
             out.append((caption, png(fig)))
     return out
+
+
+#: Results the spread figure compares as a share of the reference method's value (the
+#: over-design is itself a percentage: its difference, in points, is in the table).
+SPREAD_PLOTTED = (("duty_W", BLUE, "o"), ("exit_quality", GREEN, "s"),
+                  ("circulation_kg_s", PURPLE, "^"), ("max_chf_ratio", VERMILLION, "D"))
+
+
+def spread_reference(spread) -> tuple[int | None, str]:
+    """The row the spread figure measures from: the case's own method when it rated, else
+    none (each result then against the mean of the methods that rated)."""
+    names = [m[0] for m in spread.methods]
+    if spread.chosen in names and spread.points[names.index(spread.chosen)].rated:
+        return names.index(spread.chosen), "the case's own method"
+    return None, "the mean of the methods that rated"
+
+
+def spread_figure(spread) -> Figure | None:
+    """Each method's results as a difference from the reference method's, in per cent of
+    it: one row per method, one marker per result. None when fewer than two rated."""
+    if sum(p.rated for p in spread.points) < 2:
+        return None
+    ref, _ = spread_reference(spread)
+    titles = [t for _, t, _ in spread.methods]
+    rows = len(titles)
+    height = 1.2 + 0.32 * rows
+    fig = _figure(height, left=2.5, right=0.15, top=0.12, bottom=1.05)
+    ax = fig.subplots()
+    _style(ax)
+    ax.grid(True, axis="y", color="#eeeeee")
+    ypos = list(range(rows))[::-1]
+    shown = []
+    for key, colour, marker in SPREAD_PLOTTED:
+        if key not in spread.keys:
+            continue
+        values = spread.values(key)
+        rated = [v for v in values if v is not None]
+        base = values[ref] if ref is not None else (sum(rated) / len(rated) if rated else None)
+        if not base:
+            continue
+        xs = [100.0 * (v - base) / abs(base) if v is not None else math.nan for v in values]
+        # each result a little above or below the row's line, so equal values stay visible
+        dodge = 0.12 * (len(shown) - 1.5)
+        ax.plot(xs, [y - dodge for y in ypos], ls="none", marker=marker, ms=6, color=colour, alpha=0.9,
+                label=SUMMARY[key].label)
+        shown.append(key)
+    if not shown:
+        return None
+    ax.axvline(0.0, color=BLACK, lw=0.8)
+    ax.set_yticks(ypos)
+    ax.set_yticklabels([t + ("  (the case's)" if m[0] == spread.chosen else "")
+                        for t, m in zip(titles, spread.methods)], fontsize=FONT_PT - 1)
+    ax.set_ylim(-0.6, rows - 0.4)
+    lo, hi = ax.get_xlim()
+    span = max(abs(lo), abs(hi), 1.0)
+    ax.set_xlim(-1.1 * span, 1.1 * span)
+    ax.set_xlabel("Difference from the reference method [% of its value]", fontsize=FONT_PT)
+    # under the axis label, two to a row (the labels are long), in the figure's frame
+    fig.legend(*ax.get_legend_handles_labels(), fontsize=FONT_PT - 1, frameon=False, ncol=2,
+               loc="lower center", bbox_to_anchor=(0.5, 0.0), handletextpad=0.3,
+               columnspacing=2.0)
+    return fig

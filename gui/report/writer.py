@@ -19,12 +19,16 @@ def _safe(name: str) -> str:
 
 
 def write_report(project, cases, path, units="SI", source_path=None, *, results=None,
-                 profiles_csv=True, when=None) -> list[Path]:
+                 profiles_csv=True, when=None, spread=None, increments=None,
+                 executor=None) -> list[Path]:
     """Write the report of ``cases`` (rated now unless ``results`` are given) at ``path``.
 
     ``path`` ends in .pdf or .html; ``units`` is one of ``gui.units.SYSTEMS``. With
     ``profiles_csv`` each case's profiles are written beside it as
-    ``<stem>.<n>-<case>.csv`` in the same units. Returns the files written.
+    ``<stem>.<n>-<case>.csv`` in the same units. With ``spread`` (a method family of
+    ``rating.studies.FAMILIES``) each case gets a section with the spread between that
+    family's methods, rated on ``executor`` (default: one after the other, here) with
+    ``increments``. Returns the files written.
     Raises ``ValueError`` for a bad suffix or unit system, ``OSError`` when a file
     cannot be written.
     """
@@ -34,6 +38,10 @@ def write_report(project, cases, path, units="SI", source_path=None, *, results=
         raise ValueError(f"{path.name}: a report ends in .pdf or .html")
     if units not in SYSTEMS:
         raise ValueError(f"units = {units!r}: must be one of {', '.join(SYSTEMS)}")
+    if spread is not None:
+        from rating.studies import FAMILIES
+        if spread not in FAMILIES:
+            raise ValueError(f"spread = {spread!r}: must be one of {', '.join(FAMILIES)}")
     if not path.parent.is_dir():
         raise OSError(f"{path}: the folder {path.parent} does not exist")
     cases = list(cases)
@@ -41,7 +49,9 @@ def write_report(project, cases, path, units="SI", source_path=None, *, results=
         import rating
         results = [rating.rate(c) for c in cases]
     when = when or _dt.datetime.now(_dt.timezone.utc)
-    report = content.build(project, cases, list(results), units, source_path, when)
+    spreads = None if spread is None else [_spread(c, spread, increments, executor)
+                                           for c in cases]
+    report = content.build(project, cases, list(results), units, source_path, when, spreads)
     if suffix == ".pdf":
         from .pdf import write_pdf
         write_pdf(report, path, when.strftime("%Y-%m-%d"))
@@ -54,6 +64,19 @@ def write_report(project, cases, path, units="SI", source_path=None, *, results=
                 csv_path = path.with_name(f"{path.stem}.{i}-{_safe(result.name)}.csv")
                 written.append(write_profiles_csv(result, csv_path, units))
     return written
+
+
+def _spread(case, family, increments, executor):
+    """The case's spread over ``family``, or why there is none (a family the type does not
+    choose, fewer than two applicable methods)."""
+    from rating.errors import InputError
+    from rating.studies import InlineExecutor, method_spread
+
+    try:
+        return method_spread(case, family, executor=executor or InlineExecutor(),
+                             increments=increments)
+    except InputError as exc:
+        return str(exc)
 
 
 def html_file(report) -> str:

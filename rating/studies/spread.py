@@ -44,6 +44,18 @@ def family_path(family: str, case_type: str) -> str:
     return path
 
 
+def families_of(case_type: str) -> list[tuple[str, str]]:
+    """(family, the catalogue's label of the input it sets) of each family this exchanger
+    type chooses a method for."""
+    out = []
+    for family in FAMILIES:
+        try:
+            out.append((family, catalogue.input_field(family_path(family, case_type)).label))
+        except InputError:
+            continue
+    return out
+
+
 def applicable_methods(case, family: str) -> list[tuple[str, str, str]]:
     """(name, title, reference) of each method of the family the engine accepts for this case."""
     path = family_path(family, case.type)
