@@ -2,7 +2,10 @@
 
 Renders the main window offscreen: the start page, then every sample (its first
 case rated) in each unit system, the circulation tab of the thermosiphon samples
-and the side-by-side view of a sample's two cases. Writes one PNG per view.
+and the side-by-side view of a sample's two cases. Writes one PNG per view. With
+``--studies`` the Studies tab too: a sweep, a method spread, an operating envelope
+and a fit of each sample's first case (the fit to the case's own rated duty and
+heating-medium outlet temperature).
 """
 from __future__ import annotations
 
@@ -30,6 +33,8 @@ def main(argv=None) -> int:
     p.add_argument("--only", help="only samples whose file name contains this")
     p.add_argument("--font-scale", type=float, default=1.0,
                    help="enlarge the system font (e.g. 1.5) to check that nothing is clipped")
+    p.add_argument("--studies", action="store_true",
+                   help="also run and picture a sweep, a spread, an envelope and a fit")
     args = p.parse_args(argv)
     os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
     # settings and autosaves of these pictures go to a scratch folder, not the user's
@@ -85,6 +90,8 @@ def main(argv=None) -> int:
             window.tabs.setCurrentIndex(1)
             shot(window, f"{sample.stem}-circulation")
             window.tabs.setCurrentIndex(0)
+        if args.studies:
+            _studies(app, window, first, lambda name: shot(window, f"{sample.stem}-{name}"))
         if len(window.doc.entries) > 1:
             second = window.doc.entries[1].id
             window.runner.rate(second)
@@ -103,6 +110,49 @@ def main(argv=None) -> int:
     for path in written:
         print(path)
     return 0
+
+
+def _studies(app, window, entry_id, shot) -> None:
+    """Run each kind of study on the case shown, with few points, and picture the tab."""
+    from . import units
+
+    panel = window.studies
+    window.tabs.setCurrentWidget(panel)
+    panel.refresh()
+    summary = window.runner.state(entry_id).result.summary
+
+    def fit(p):
+        for key, tol, quantity in (("duty_W", 0.03 * summary["duty_W"], "power"),
+                                   ("heating_outlet_temperature_K", 0.5,
+                                    "temperature_difference")):
+            value = summary.get(key)
+            if value is not None:
+                q = "temperature" if key.endswith("_K") else "power"
+                measured, tolerance = p.fit_setup.measure(key)
+                measured.setText(units.format_number(units.to_display(value, q, p.system)))
+                tolerance.setText(units.format_number(units.to_display(tol, quantity, p.system)))
+
+    def envelope(p):
+        """Down to a quarter of the case's first input, with the rated duty required: the
+        limits' edges show."""
+        p.env_x.count.setText("5")
+        p.env_y.count.setText("4")
+        start = float(p.env_x.start.text().replace(",", ""))
+        p.env_x.start.setText(units.format_number(start * 0.25 / 0.7))
+        p.required.setText(units.format_number(
+            units.to_display(summary["duty_W"], "power", p.system)))
+
+    setups = (("sweep", lambda p: p.vary.count.setText("8")),
+              ("spread", lambda p: None),
+              ("envelope", envelope),
+              ("fit", fit))
+    for kind, setup in setups:
+        panel.kind_box.setCurrentIndex(panel.kind_box.findData(kind))
+        setup(panel)
+        panel.run()
+        _wait(app, lambda: not panel.busy(), timeout=900.0)
+        shot(f"study-{kind}")
+    window.tabs.setCurrentIndex(0)
 
 
 if __name__ == "__main__":

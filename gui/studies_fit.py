@@ -10,8 +10,8 @@ from __future__ import annotations
 import math
 
 import numpy as np
-from PySide6.QtWidgets import (QCheckBox, QGridLayout, QGroupBox, QHBoxLayout, QLabel,
-                               QLineEdit, QWidget)
+from matplotlib.ticker import MaxNLocator
+from PySide6.QtWidgets import QComboBox, QHBoxLayout, QLabel, QLineEdit, QVBoxLayout, QWidget
 
 from rating import catalogue, studies
 from rating.studies.fit import MISSED
@@ -47,120 +47,203 @@ def _number(text: str):
     return float(text) if text else None
 
 
-class FitSetup(QWidget):
-    """The measured values with their tolerances, and the inputs to fit with their bounds,
-    in display units."""
+class _FitRow(QWidget):
+    """An input to fit, chosen from ``PARAMETERS``, with its bounds in display units."""
+
+    def __init__(self, title, optional, parent=None):
+        super().__init__(parent)
+        lay = QHBoxLayout(self)
+        lay.setContentsMargins(0, 0, 0, 0)
+        self.path = QComboBox()
+        self.low, self.high = QLineEdit(), QLineEdit()
+        for w in (self.low, self.high):
+            w.setMaximumWidth(80)
+        self.unit = QLabel("")
+        lay.addWidget(QLabel(title))
+        lay.addWidget(self.path, 1)
+        lay.addWidget(QLabel("from"))
+        lay.addWidget(self.low)
+        lay.addWidget(QLabel("to"))
+        lay.addWidget(self.high)
+        lay.addWidget(self.unit)
+        self.optional, self.system = optional, "SI"
+        self.path.currentIndexChanged.connect(self._default_range)
+
+    def fill(self, paths, system):
+        self.system = system
+        self.path.blockSignals(True)
+        self.path.clear()
+        if self.optional:
+            self.path.addItem("(nothing)", None)
+        for p in paths:
+            self.path.addItem(catalogue.input_field(p).label, p)
+        self.path.setCurrentIndex(0 if self.optional else max(0, self.path.findData(
+            DEFAULT_PARAMETER)))
+        self.path.blockSignals(False)
+        self._default_range()
+
+    def _default_range(self):
+        p = self.path.currentData()
+        for w in (self.low, self.high):
+            w.setEnabled(p is not None)
+            w.setText("")
+        self.unit.setText("")
+        if p is None:
+            return
+        f = catalogue.input_field(p)
+        for w, v in zip((self.low, self.high), f.usual if f.usual else f.hard):
+            w.setText(units.format_number(units.to_display(v, f.quantity, self.system)))
+        self.unit.setText(units.unit_label(f.quantity, self.system))
+
+    def parameter(self):
+        """The ``Parameter`` in SI, or None for "(nothing)"; ValueError names the field."""
+        p = self.path.currentData()
+        if p is None:
+            return None
+        f = catalogue.input_field(p)
+        try:
+            lo, hi = (units.from_display(float(w.text().replace(",", "")), f.quantity,
+                                         self.system) for w in (self.low, self.high))
+        except ValueError:
+            raise ValueError(f"{f.label}: the bounds must be numbers") from None
+        if not lo < hi:
+            raise ValueError(f"{f.label}: the bound 'from' must be below 'to'")
+        return studies.Parameter(p, lo, hi)
+
+
+class _MeasuredRow(QWidget):
+    """One measured result, chosen from what this case can be measured by, its value and
+    its tolerance, in display units."""
 
     def __init__(self, parent=None):
         super().__init__(parent)
         lay = QHBoxLayout(self)
         lay.setContentsMargins(0, 0, 0, 0)
-        self.measured_box = QGroupBox("Measured on the unit (leave empty what was not measured)")
-        self.fit_box = QGroupBox("Inputs to fit, between bounds")
-        self.measured_grid = QGridLayout(self.measured_box)
-        self.fit_grid = QGridLayout(self.fit_box)
-        for grid in (self.measured_grid, self.fit_grid):
-            grid.setContentsMargins(6, 2, 6, 2)
-            grid.setVerticalSpacing(2)
-        lay.addWidget(self.measured_box, 3)
-        lay.addWidget(self.fit_box, 2)
-        self.values, self.tolerances, self.checks, self.bounds = {}, {}, {}, {}
+        self.key = QComboBox()
+        self.value, self.tolerance = QLineEdit(), QLineEdit()
+        self.value.setPlaceholderText("measured")
+        self.tolerance.setPlaceholderText("tolerance")
+        self.value.setToolTip("The value measured on the running unit")
+        self.tolerance.setToolTip("Its tolerance, taken as one standard deviation of the "
+                                  "measurement")
+        for w in (self.value, self.tolerance):
+            w.setFixedWidth(96)
+        self.unit, self.tolerance_unit = QLabel(""), QLabel("")
+        for w in (self.unit, self.tolerance_unit):
+            w.setMinimumWidth(40)
+        lay.addWidget(QLabel("Measured"))
+        lay.addWidget(self.key, 1)
+        lay.addWidget(self.value)
+        lay.addWidget(self.unit)
+        lay.addWidget(QLabel("±"))
+        lay.addWidget(self.tolerance)
+        lay.addWidget(self.tolerance_unit)
+        self.system = "SI"
+        self.key.currentIndexChanged.connect(self._units)
+
+    def fill(self, keys, system, current):
+        self.system = system
+        self.key.blockSignals(True)
+        self.key.clear()
+        self.key.addItem("(nothing)", None)
+        for k in keys:
+            self.key.addItem(catalogue.SUMMARY[k].label, k)
+        self.key.setCurrentIndex(max(0, self.key.findData(current)))
+        self.key.blockSignals(False)
+        self._units()
+
+    def _units(self, *_):
+        k = self.key.currentData()
+        for w in (self.value, self.tolerance):
+            w.setEnabled(k is not None)
+        q = catalogue.SUMMARY[k].quantity if k else None
+        self.unit.setText(units.unit_label(q, self.system) if q else "")
+        self.tolerance_unit.setText(units.unit_label(tolerance_quantity(q), self.system)
+                                    if q else "")
+
+    def measurement(self):
+        """The ``Measurement`` in SI, or None; ValueError names the field and what it needs."""
+        k = self.key.currentData()
+        if k is None:
+            return None
+        f = catalogue.SUMMARY[k]
+        try:
+            value, tol = _number(self.value.text()), _number(self.tolerance.text())
+        except ValueError:
+            raise ValueError(f"{f.label}: the measured value and its tolerance must be "
+                             "numbers") from None
+        if value is None:
+            if tol is not None:
+                raise ValueError(f"{f.label}: a tolerance without a measured value")
+            return None
+        if tol is None or not tol > 0.0:
+            raise ValueError(f"{f.label}: give its tolerance (one standard deviation), > 0 "
+                             f"{units.unit_label(tolerance_quantity(f.quantity), self.system)}")
+        return studies.Measurement(k, units.from_display(value, f.quantity, self.system),
+                                   units.from_display(tol, tolerance_quantity(f.quantity),
+                                                      self.system))
+
+
+#: What the measured rows show first: the duty and the heating medium's outlet
+#: temperature are what a plant measures most often (common practice).
+FIRST_MEASURED = ("duty_W", "heating_outlet_temperature_K", None)
+
+
+class FitSetup(QWidget):
+    """Up to three measured values with their tolerances, and one or two inputs to fit with
+    their bounds, in display units."""
+
+    def __init__(self, parent=None):
+        super().__init__(parent)
+        lay = QVBoxLayout(self)
+        lay.setContentsMargins(0, 0, 0, 0)
+        lay.setSpacing(2)
+        self.measured_rows = [_MeasuredRow() for _ in FIRST_MEASURED]
+        self.fit_rows = [_FitRow("Fit", False), _FitRow("and", True)]
+        for row in self.measured_rows + self.fit_rows:
+            lay.addWidget(row)
         self._built_for = None
         self.system = "SI"
 
     def fill(self, case, system):
-        """Rows for this case's measurable results and fittable inputs; typed values are
-        kept while the exchanger type and the unit system stay the same."""
+        """Choices for this case; typed values are kept while the exchanger type, the
+        heating medium and the unit system stay."""
         key = (case.type, case.heating.kind, system)
         if key == self._built_for:
             return
         self._built_for, self.system = key, system
-        for grid in (self.measured_grid, self.fit_grid):
-            while grid.count():
-                grid.takeAt(0).widget().deleteLater()
-        self.values, self.tolerances, self.checks, self.bounds = {}, {}, {}, {}
-        g = self.measured_grid
-        for c, text in enumerate(("Result", "Measured", "", "± tolerance (1 s.d.)", "")):
-            if text:
-                g.addWidget(_small(text), 0, c)
-        for r, k in enumerate(measurable(case), 1):
-            f = catalogue.SUMMARY[k]
-            value, tol = QLineEdit(), QLineEdit()
-            value.setObjectName(f"measured-{k}")
-            tol.setObjectName(f"tolerance-{k}")
-            for w in (value, tol):
-                w.setMaximumWidth(110)
-            g.addWidget(QLabel(f.label), r, 0)
-            g.addWidget(value, r, 1)
-            g.addWidget(QLabel(units.unit_label(f.quantity, system)), r, 2)
-            g.addWidget(tol, r, 3)
-            g.addWidget(QLabel(units.unit_label(tolerance_quantity(f.quantity), system)), r, 4)
-            self.values[k], self.tolerances[k] = value, tol
-        g.setColumnStretch(0, 1)
-        g = self.fit_grid
-        for c, text in enumerate(("Input", "from", "to", "")):
-            if text:
-                g.addWidget(_small(text), 0, c)
+        keys = measurable(case)
+        for row, first in zip(self.measured_rows, FIRST_MEASURED):
+            row.fill(keys, system, first)
+            row.value.clear()
+            row.tolerance.clear()
         paths = [p for p in PARAMETERS if p in studies.study_paths(case)]
-        for r, p in enumerate(paths, 1):
-            f = catalogue.input_field(p)
-            check = QCheckBox(f.label)
-            check.setObjectName(f"fit-{p}")
-            check.setChecked(p == DEFAULT_PARAMETER)
-            low, high = QLineEdit(), QLineEdit()
-            lo, hi = f.usual if f.usual else f.hard
-            for w, v in ((low, lo), (high, hi)):
-                w.setMaximumWidth(80)
-                w.setText(units.format_number(units.to_display(v, f.quantity, system)))
-            g.addWidget(check, r, 0)
-            g.addWidget(low, r, 1)
-            g.addWidget(high, r, 2)
-            g.addWidget(QLabel(units.unit_label(f.quantity, system)), r, 3)
-            self.checks[p], self.bounds[p] = check, (low, high)
-        g.setColumnStretch(0, 1)
-        g.setRowStretch(len(paths) + 1, 1)
+        for row in self.fit_rows:
+            row.fill(paths, system)
+
+    def measure(self, key):
+        """The (value, tolerance) fields of the row that shows ``key``, choosing it in the
+        first free row if none does."""
+        rows = [r for r in self.measured_rows if r.key.currentData() == key] or \
+            [r for r in self.measured_rows if r.key.currentData() is None]
+        row = rows[0]
+        row.key.setCurrentIndex(row.key.findData(key))
+        return row.value, row.tolerance
 
     def measurements(self) -> list:
         """The typed measurements in SI; ValueError names the field and what it needs."""
-        out = []
-        for k, box in self.values.items():
-            f = catalogue.SUMMARY[k]
-            try:
-                value, tol = _number(box.text()), _number(self.tolerances[k].text())
-            except ValueError:
-                raise ValueError(f"{f.label}: the measured value and its tolerance must be "
-                                 "numbers") from None
-            if value is None:
-                if tol is not None:
-                    raise ValueError(f"{f.label}: a tolerance without a measured value")
-                continue
-            if tol is None or not tol > 0.0:
-                raise ValueError(f"{f.label}: give its tolerance (one standard deviation), "
-                                 f"> 0 {units.unit_label(tolerance_quantity(f.quantity), self.system)}")
-            out.append(studies.Measurement(
-                k, units.from_display(value, f.quantity, self.system),
-                units.from_display(tol, tolerance_quantity(f.quantity), self.system)))
+        out = [m for m in (r.measurement() for r in self.measured_rows) if m is not None]
+        if len({m.key for m in out}) < len(out):
+            raise ValueError("Fit: the same result measured twice; keep one")
         if not out:
             raise ValueError("Fit: type at least one measured value and its tolerance")
         return out
 
     def parameters(self) -> list:
-        """The checked inputs with their bounds in SI; ValueError names the field."""
-        out = []
-        for p, check in self.checks.items():
-            if not check.isChecked():
-                continue
-            f = catalogue.input_field(p)
-            try:
-                lo, hi = (units.from_display(float(w.text().replace(",", "")), f.quantity,
-                                             self.system) for w in self.bounds[p])
-            except ValueError:
-                raise ValueError(f"{f.label}: the bounds must be numbers") from None
-            if not lo < hi:
-                raise ValueError(f"{f.label}: the bound 'from' must be below 'to'")
-            out.append(studies.Parameter(p, lo, hi))
-        if not out:
-            raise ValueError("Fit: tick at least one input to fit")
+        """The inputs to fit with their bounds in SI; ValueError names the field."""
+        out = [p for p in (row.parameter() for row in self.fit_rows) if p is not None]
+        if len({p.path for p in out}) < len(out):
+            raise ValueError("Fit: the same input twice; choose another, or (nothing)")
         return out
 
 
@@ -257,7 +340,7 @@ def draw(axes, fit, system: str) -> str:
         trials.sort(key=lambda t: t[0][first])
         x = _display([t[0][first] for t in trials], fq, system)
         rms = np.array([math.sqrt(m / n) for _, m in trials])
-        left.plot(x, rms, "o-", color=C["blue"], ms=3.5, lw=1.2, label="ratings of the fit")
+        left.plot(x, rms, "o-", color=C["blue"], ms=3.5, lw=1.2)
         left.set_ylabel("Misfit, RMS [tolerances]", fontsize=FONT)
         left.axhline(1.0, color="#777777", ls="--", lw=0.9)
         left.text(0.99, 1.0, "one tolerance", transform=left.get_yaxis_transform(),
@@ -268,7 +351,7 @@ def draw(axes, fit, system: str) -> str:
         sq = catalogue.input_field(second).quantity
         x = _display([t[0][first] for t in trials], fq, system)
         y = _display([t[0][second] for t in trials], sq, system)
-        left.plot(x, y, ".", color="#999999", ms=4, label="ratings of the fit")
+        left.plot(x, y, ".", color="#999999", ms=4)
         f2 = catalogue.input_field(second)
         left.set_ylabel(f"{f2.label} [{units.unit_label(sq, system)}]", fontsize=FONT)
     v = units.to_display(fit.values[first], fq, system)
@@ -276,11 +359,10 @@ def draw(axes, fit, system: str) -> str:
     if fit.status not in ("failed", "cancelled"):
         if u is not None:
             du = _difference(u, fq, system)
-            left.axvspan(v - du, v + du, color=C["green"], alpha=0.2, lw=0,
-                         label="fitted ± one standard deviation")
+            left.axvspan(v - du, v + du, color=C["green"], alpha=0.2, lw=0)
         left.axvline(v, color=C["green"] if u is not None else C["vermillion"], lw=1.8,
-                     label="fitted" if u is not None else "fitted, not identifiable")
-        left.legend(fontsize=FONT - 1, frameon=False, loc="upper center")
+                     label="fitted")
+    left.xaxis.set_major_locator(MaxNLocator(4))        # long values: fewer ticks
     f1 = catalogue.input_field(first)
     left.set_xlabel(f"{f1.label} [{units.unit_label(fq, system)}]", fontsize=FONT)
 
@@ -300,7 +382,7 @@ def draw(axes, fit, system: str) -> str:
                           fontsize=FONT)
     right.set_ylim(-0.7, len(r) - 0.3)
     right.set_xlabel("Model − measured [tolerances]", fontsize=FONT)
-    right.set_title("Each measurement (green: within one tolerance, yellow: two)",
-                    fontsize=FONT,
+    right.set_title("Each measurement", fontsize=FONT,
                     loc="left", color=INK)
-    return f"{VERDICTS[fit.status]}: misfit against the fitted input"
+    # the line is the fitted value, the band its ± 1 s.d.: the verdict above says both
+    return "Misfit of each rating" if fit.trials else VERDICTS[fit.status]

@@ -24,7 +24,9 @@ from rating.cli import CAUTION
 from rating.errors import InputError
 
 from . import studies_fit, units
-from .plots import FONT, _Canvas, _display
+from matplotlib.ticker import FuncFormatter
+
+from .plots import FONT, _Canvas, _display, _tick
 from .style import INK, OKABE_ITO as C
 
 KINDS = (("sweep", "Sweep"), ("spread", "Method spread"), ("envelope", "Operating envelope"),
@@ -261,7 +263,11 @@ class StudiesPanel(QWidget):
         self.table.verticalHeader().setVisible(False)
         split.addWidget(self.plot)
         split.addWidget(self.table)
-        self.plot.setMinimumHeight(220)
+        self.plot.setMinimumHeight(190)
+        # the header and two rows stay in sight however small the window
+        self.table.setMinimumHeight(self.table.horizontalHeader().sizeHint().height()
+                                    + 2 * self.table.verticalHeader().defaultSectionSize()
+                                    + self.table.horizontalScrollBar().sizeHint().height() + 4)
         split.setSizes([520, 110])
         lay.addWidget(split, 1)
 
@@ -460,7 +466,7 @@ class StudiesPanel(QWidget):
             self.plot._style(a, "")
         # room on the left for the methods' names, on the right for a legend; between the
         # fit's two plots for the measurements' names
-        self.plot.MARGINS = {"spread": (230, 30, 26, 46, 40, 60),
+        self.plot.MARGINS = {"spread": (230, 30, 40, 46, 40, 60),
                              "fit": (74, 24, 26, 46, 40, 250)}.get(self.kind,
                                                                   (74, 190, 26, 46, 40, 60))
         if self.kind == "fit":
@@ -469,8 +475,32 @@ class StudiesPanel(QWidget):
             title = {"sweep": self._draw_sweep, "spread": self._draw_spread,
                      "envelope": self._draw_envelope}[self.kind]()
         ax.set_title(title, fontsize=FONT + 1, loc="left", color=INK)
-        self.plot._relayout()
+        self._fit_margins()
         self.plot.canvas.draw_idle()
+
+    def _fit_margins(self):
+        """Margins from what was drawn, so that no tick label, axis label or legend is cut:
+        a value of 9,000,000 Btu/h needs more room than one of 2.6 MW."""
+        fig, canvas = self.plot.figure, self.plot.canvas
+        self.plot._relayout()
+        if fig.get_size_inches()[0] * fig.dpi < 50:
+            return
+        canvas.draw()
+        renderer = canvas.get_renderer()
+        left, right, top, bottom, hgap, wgap = self.plot.MARGINS
+        axes = fig.axes
+        boxes = [a.yaxis.get_tightbbox(renderer) for a in axes]     # None: nothing drawn
+        need = [(b.width if b is not None else 0.0) + 12 for b in boxes]
+        left = max(60, need[0])
+        if len(axes) > 1:
+            wgap = max(40, need[1] + 24)
+        legend, right = axes[-1].get_legend(), 24
+        if legend is not None:
+            box = legend.get_window_extent(renderer)
+            if box.x0 > axes[-1].get_window_extent(renderer).x1:     # outside, on the right
+                right = box.width + 24
+        self.plot.MARGINS = (left, right, top, bottom, hgap, wgap)
+        self.plot._relayout()
 
     def _axes(self, count):
         """One plot, or the fit's two side by side; made again only when the count changes."""
@@ -539,9 +569,9 @@ class StudiesPanel(QWidget):
             lo, hi = finite.min(), finite.max()
             ax.axvspan(lo, hi, color=C["sky"], alpha=0.18, lw=0)
             unit = units.unit_label(f.quantity, self.system)
-            share = f" = {100 * (hi - lo) / abs(lo):.1f} %" if lo else ""
-            title = (f"{f.label}: {units.format_number(lo)} to {units.format_number(hi)} {unit}, "
-                     f"spread {units.format_number(hi - lo)} {unit}{share}")
+            share = f" ({100 * (hi - lo) / abs(lo):.1f} % of the lowest)" if lo else ""
+            title = (f"{f.label}: {units.format_number(lo)} to {units.format_number(hi)} {unit}"
+                     f"\nspread {units.format_number(hi - lo)} {unit}{share}")
             pad = 0.25 * (hi - lo) if hi > lo else 0.02 * abs(hi) or 1.0
             ax.set_xlim(lo - pad, hi + pad)
         for y, v, name in zip(ypos, values, names):
@@ -556,6 +586,7 @@ class StudiesPanel(QWidget):
         ax.set_yticklabels([t + ("  (the case's)" if n == s.chosen else "")
                             for n, t, _ in s.methods], fontsize=FONT)
         ax.set_ylim(-0.7, len(names) - 0.3)
+        ax.xaxis.set_major_formatter(FuncFormatter(_tick))     # no power of ten aside
         ax.set_xlabel(label, fontsize=FONT)
         return title
 
@@ -592,6 +623,7 @@ class StudiesPanel(QWidget):
             ax.plot(units.to_display(ox, qx, self.system), units.to_display(oy, qy, self.system),
                     marker="*", ms=14, color=INK, ls="none", label="operating point")
         ax.legend(fontsize=FONT - 1, frameon=False, loc="upper left", bbox_to_anchor=(1.01, 1.0))
+        ax.margins(0.06)              # no point drawn on the frame
         ax.set_xlabel(self._input_label(e.x.path), fontsize=FONT)
         ax.set_ylabel(self._input_label(e.y.path), fontsize=FONT)
         duty = (f", duty {units.format_value(e.required_duty, 'power', self.system)}"

@@ -184,11 +184,14 @@ def test_fit_in_the_tab_recovers_a_known_fouling(qtbot, chiller, plant):
     tolerance gives); the tab shows it to the decimal place of its uncertainty."""
     panel = fit_panel(qtbot, chiller)
     setup = panel.fit_setup
-    assert setup.checks["boiling.fouling_resistance"].isChecked()
-    assert [w.text() for w in setup.bounds["boiling.fouling_resistance"]] == ["0", "0.002000"]
+    first, second = setup.fit_rows
+    assert first.path.currentData() == "boiling.fouling_resistance"
+    assert [first.low.text(), first.high.text()] == ["0", "0.002000"]
+    assert second.path.currentData() is None
     measured = plant.summary["heating_outlet_temperature_K"] - 273.15
-    type_into(qtbot, setup.values["heating_outlet_temperature_K"], repr(measured))
-    type_into(qtbot, setup.tolerances["heating_outlet_temperature_K"], "0.1")
+    value, tolerance = setup.measure("heating_outlet_temperature_K")
+    type_into(qtbot, value, repr(measured))
+    type_into(qtbot, tolerance, "0.1")
     run_by_button(qtbot, panel)
     assert panel.study.status == "fitted"
     assert panel.study.values["boiling.fouling_resistance"] == pytest.approx(TRUE_FOULING,
@@ -217,9 +220,9 @@ def test_fit_in_the_tab_says_when_the_fouling_is_not_identifiable(qtbot, chiller
     fouling (test_studies.py), so a 0.5 K tolerance cannot fix it; the tab says so."""
     panel = fit_panel(qtbot, chiller)
     setup = panel.fit_setup
-    type_into(qtbot, setup.values["exit_temperature_K"],
-              repr(plant.summary["exit_temperature_K"] - 273.15))
-    type_into(qtbot, setup.tolerances["exit_temperature_K"], "0.5")
+    value, tolerance = setup.measure("exit_temperature_K")
+    type_into(qtbot, value, repr(plant.summary["exit_temperature_K"] - 273.15))
+    type_into(qtbot, tolerance, "0.5")
     run_by_button(qtbot, panel)
     assert panel.study.status == "unidentifiable"
     assert panel.fit_verdict.text().startswith("Not identifiable: Fouling resistance, boiling "
@@ -232,22 +235,24 @@ def test_fit_in_the_tab_says_when_the_fouling_is_not_identifiable(qtbot, chiller
 
 def test_fit_set_up_refuses_a_measurement_without_its_tolerance(qtbot, chiller):
     panel = fit_panel(qtbot, chiller)
-    type_into(qtbot, panel.fit_setup.values["duty_W"], "40")
+    value, tolerance = panel.fit_setup.measure("duty_W")
+    type_into(qtbot, value, "40")
     run_by_button(qtbot, panel)
     assert panel.study is None
     assert "Duty: give its tolerance" in panel.note.text()
-    type_into(qtbot, panel.fit_setup.tolerances["duty_W"], "1")
-    panel.fit_setup.checks["boiling.fouling_resistance"].setChecked(False)
+    type_into(qtbot, tolerance, "1")
+    second = panel.fit_setup.fit_rows[1]
+    second.path.setCurrentIndex(second.path.findData("boiling.fouling_resistance"))
     run_by_button(qtbot, panel)
-    assert panel.study is None and "tick at least one input" in panel.note.text()
+    assert panel.study is None and "the same input twice" in panel.note.text()
 
 
 def test_stop_ends_a_fit_as_stopped(qtbot, chiller, plant):
     panel = fit_panel(qtbot, chiller)
     setup = panel.fit_setup
-    type_into(qtbot, setup.values["heating_outlet_temperature_K"],
-              repr(plant.summary["heating_outlet_temperature_K"] - 273.15))
-    type_into(qtbot, setup.tolerances["heating_outlet_temperature_K"], "0.1")
+    value, tolerance = setup.measure("heating_outlet_temperature_K")
+    type_into(qtbot, value, repr(plant.summary["heating_outlet_temperature_K"] - 273.15))
+    type_into(qtbot, tolerance, "0.1")
     panel.run()
     panel.stop()
     qtbot.waitUntil(lambda: not panel.busy(), timeout=TIMEOUT_MS)
