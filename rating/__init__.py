@@ -65,10 +65,9 @@ def _with_plausibility(case, result: Result) -> Result:
     import dataclasses
 
     from .catalogue import usual_range_warnings
-    from .results import RatingWarning
+    from .rules import note
 
-    found = tuple(RatingWarning("input-outside-usual-range", "warning", p.message)
-                  for p in usual_range_warnings(case))
+    found = tuple(note("input-outside-usual-range", p.message) for p in usual_range_warnings(case))
     if not found:
         return result
     status = "warnings" if result.status == "ok" else result.status

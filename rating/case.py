@@ -222,9 +222,10 @@ class Methods:
 
 @dataclass(frozen=True)
 class Limits:
-    """Warning thresholds, each a user-editable default with its source.
+    """Warning thresholds, each a user-editable default.
 
-    Sources are given in ``rating.checks.LIMIT_SOURCES``.
+    Labels, units, allowed ranges and sources: ``rating.rules.LIMITS``; the warnings
+    that read them: ``rating.rules.RULES``.
     """
 
     chf_ratio: float = 0.7

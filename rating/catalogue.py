@@ -142,77 +142,12 @@ _OPEN_LO = (True, False)
 
 
 def _limit_fields():
-    """The editable warning limits, with their sources from ``rating.checks``."""
-    from .checks import LIMIT_SOURCES
+    """The editable warning limits, with their sources (``rating.rules.LIMITS``)."""
+    from .rules import LIMITS
 
-    units = {"-": "fraction", "W/m^2": "heat_flux", "K": "temperature_difference",
-             "Pa": "pressure", "kg/m/s^2": "momentum_flux", "m/s": "velocity", "m": "length"}
-    labels = {
-        "chf_ratio": "Largest local flux / critical flux",
-        "critical_quality": "Critical vapour quality (user limit)",
-        "min_nucleate_flux": "Smallest flux for nucleate boiling",
-        "min_temperature_approach": "Smallest temperature approach",
-        "kern_flux_cap": "Kern's flux cap",
-        "thermosiphon_max_exit_quality": "Largest exit vapour quality",
-        "thermosiphon_max_exit_quality_aqueous": "Largest exit vapour quality, aqueous",
-        "thermosiphon_circulation_ratio_min": "Smallest circulation ratio",
-        "thermosiphon_circulation_ratio_max": "Largest circulation ratio",
-        "thermosiphon_max_flux": "Largest mean heat flux",
-        "thermosiphon_level_min_fraction": "Lowest column level / tube length",
-        "thermosiphon_level_max_fraction": "Highest column level / tube length",
-        "thermosiphon_level_min_fraction_vacuum": "Lowest level / tube length, vacuum",
-        "thermosiphon_level_max_fraction_vacuum": "Highest level / tube length, vacuum",
-        "thermosiphon_min_pressure": "Lowest column pressure",
-        "thermosiphon_nozzle_rho_v2": "Largest nozzle rho v²",
-        "thermosiphon_max_subcooled_fraction": "Longest subcooled zone / tube length",
-        "kettle_bundle_flux_ratio": "Largest bundle flux / bundle limit",
-        "kettle_min_bundle_factor": "Smallest bundle geometry factor",
-        "kettle_surface_velocity_constant": "Surface vapour velocity constant",
-        "kettle_min_freeboard": "Smallest freeboard",
-        "kettle_min_level_over_bundle": "Smallest liquid level over the bundle",
-        "kettle_vapour_nozzle_rho_v2": "Largest vapour nozzle rho v²",
-        "kettle_inlet_nozzle_rho_v2": "Largest liquid inlet nozzle rho v²",
-    }
-    ratios = {"thermosiphon_circulation_ratio_min", "thermosiphon_circulation_ratio_max",
-              "kettle_bundle_flux_ratio"}
-    out = []
-    for name, (_default, unit, source) in LIMIT_SOURCES.items():
-        quantity = "dimensionless" if name in ratios else units[unit]
-        types = (("thermosiphon",) if name.startswith("thermosiphon_") else
-                 ("kettle",) if name.startswith("kettle_") else ALL)
-        out.append(_field(f"limits.{name}", labels.get(name, name.replace("_", " ")),
-                          quantity, "limits", source, types=types,
-                          hard=_LIMIT_HARD.get(name), hard_open=_LIMIT_OPEN.get(name, (False, False))))
-    return out
+    return [_field(lim.path, lim.label, lim.quantity, "limits", lim.source, types=lim.types,
+                   hard=lim.hard, hard_open=lim.hard_open) for lim in LIMITS.values()]
 
-
-_LIMIT_HARD = {
-    "chf_ratio": (0.0, 1.0), "critical_quality": (0.0, 1.0), "min_nucleate_flux": _POS,
-    "min_temperature_approach": _POS, "kern_flux_cap": _POS,
-    "thermosiphon_max_exit_quality": (0.0, 1.0),
-    "thermosiphon_max_exit_quality_aqueous": (0.0, 1.0),
-    "thermosiphon_circulation_ratio_min": _POS, "thermosiphon_circulation_ratio_max": _POS,
-    "thermosiphon_max_flux": _POS,
-    "thermosiphon_level_min_fraction": (0.0, 2.0), "thermosiphon_level_max_fraction": (0.0, 2.0),
-    "thermosiphon_level_min_fraction_vacuum": (0.0, 2.0),
-    "thermosiphon_level_max_fraction_vacuum": (0.0, 2.0),
-    "thermosiphon_min_pressure": _POS, "thermosiphon_nozzle_rho_v2": _POS,
-    "thermosiphon_max_subcooled_fraction": (0.0, 1.0),
-    "kettle_bundle_flux_ratio": _POS, "kettle_min_bundle_factor": (0.0, 1.0),
-    "kettle_surface_velocity_constant": _POS, "kettle_min_freeboard": _POS,
-    "kettle_min_level_over_bundle": (-10.0, 10.0), "kettle_vapour_nozzle_rho_v2": _POS,
-    "kettle_inlet_nozzle_rho_v2": _POS,
-}
-_LIMIT_OPEN = {
-    "chf_ratio": _OPEN_LO, "critical_quality": (True, True),
-    "thermosiphon_max_exit_quality": _OPEN_LO, "thermosiphon_max_exit_quality_aqueous": _OPEN_LO,
-    "thermosiphon_circulation_ratio_min": (True, False),
-    "thermosiphon_circulation_ratio_max": (True, False), "thermosiphon_max_flux": _OPEN_LO,
-    "kern_flux_cap": _OPEN_LO, "thermosiphon_nozzle_rho_v2": _OPEN_LO,
-    "thermosiphon_max_subcooled_fraction": _OPEN_LO, "kettle_bundle_flux_ratio": _OPEN_LO,
-    "kettle_surface_velocity_constant": _OPEN_LO, "kettle_vapour_nozzle_rho_v2": _OPEN_LO,
-    "kettle_inlet_nozzle_rho_v2": _OPEN_LO,
-}
 
 #: A vendor's stated figures: (name, label, quantity, hard, usual, types, help).
 _VENDOR = (

@@ -22,6 +22,7 @@ from .adjust import Adjustment, of_side
 from .case import derived_fields
 from .errors import PropertyError
 from .results import MethodUsed, RatingWarning
+from .rules import warn
 
 #: Boiling range [K] from which a mixture's pseudo-pure rating is a warning rather than a
 #: note: beyond a few kelvin the rise of the bubble point along the path and the
@@ -49,8 +50,6 @@ def _saturation_temperature(spec, P):
 
 def inputs_shown(case) -> tuple[dict, list[RatingWarning]]:
     """Summary entries and warnings that describe the inputs a rating used."""
-    from .properties import make_fluid
-
     b, hm = case.boiling, case.heating
     summary = {"boiling_pressure_Pa": b.inlet_pressure,
                "boiling_saturation_temperature_K": b.inlet_saturation_temperature
@@ -62,47 +61,40 @@ def inputs_shown(case) -> tuple[dict, list[RatingWarning]]:
     warnings = []
     t = case.tubes
     if t.count % t.passes:
-        warnings.append(RatingWarning(
-            "tubes-spread-over-passes", "info",
-            f"{t.count} tubes in {t.passes} passes: marched as {t.tubes_per_pass:.4g} tubes a "
-            f"pass (passes of {t.count // t.passes + 1} and {t.count // t.passes} tubes taken "
-            "at their mean flow area), so every tube counts"))
+        warnings.append(warn("tubes-spread-over-passes", count=t.count, passes=t.passes,
+                             per=t.tubes_per_pass, more=t.count // t.passes + 1,
+                             fewer=t.count // t.passes))
     if case.kettle is not None:
         for name in ("kettle_diameter", "port_diameter", "weir_height"):
             summary[f"{name}_m"] = getattr(case.kettle, name)
-        for name, how in derived_fields(case.kettle).items():
-            warnings.append(RatingWarning(
-                "dimension-defaulted", "warning",
-                f"kettle.{name} was not given: {getattr(case.kettle, name):.4g} m taken from "
-                f"{how}; give the datasheet value to rate the real shell"))
-    for side, adjust in _adjustments(case):
-        warnings.append(RatingWarning(
-            "coefficient-set-by-user", "warning",
-            adjust.describe(f"the {side}-side", "the chosen method") + ": the result rests on "
-            "that value"))
+        warnings += [warn("dimension-defaulted", name=name, how=how,
+                          value=getattr(case.kettle, name))
+                     for name, how in derived_fields(case.kettle).items()]
+    warnings += [warn("coefficient-set-by-user", what=adjust.describe(
+        f"the {side}-side", "the chosen method")) for side, adjust in _adjustments(case)]
+    return summary, warnings + _fluid_notes(case, summary)
+
+
+def _fluid_notes(case, summary) -> list[RatingWarning]:
+    """A mixture rated as pseudo-pure (its boiling range into ``summary``), a user table."""
+    from .properties import make_fluid
+
+    b = case.boiling
     try:
         fluid = make_fluid(b.fluid)
     except PropertyError:
-        return summary, warnings
+        return []
     boiling_range = getattr(fluid, "boiling_range", None)
     if boiling_range is not None:
-        span = boiling_range(b.inlet_pressure)
-        summary["boiling_range_K"] = span
-        warnings.append(RatingWarning(
-            "mixture-as-pure-fluid", "warning" if span > NARROW_BOILING_RANGE else "info",
-            f"{fluid.name} is rated as a pseudo-pure fluid: boiling at its bubble point, with "
-            f"a boiling range (dew minus bubble point) of {span:.2f} K at the inlet pressure; "
-            "the bubble point's rise along the path and the mass-transfer penalty on boiling "
-            "are not modelled" + ("; a kettle's mixture correction needs kettle.boiling_range"
-                                  if case.kettle is not None and not case.kettle.boiling_range
-                                  else "")))
-    elif isinstance(b.fluid, dict):
-        warnings.append(RatingWarning(
-            "user-property-table", "info",
-            f"boiling-side properties from the user's saturation table {fluid.name!r} "
-            f"({fluid.T_min:.5g} to {fluid.T_max:.5g} K); methods that need fluid-specific "
-            "constants (look-up tables, reference coefficients) have none for it"))
-    return summary, warnings
+        span = summary["boiling_range_K"] = boiling_range(b.inlet_pressure)
+        kettle = ("; a kettle's mixture correction needs kettle.boiling_range"
+                  if case.kettle is not None and not case.kettle.boiling_range else "")
+        return [warn("mixture-as-pure-fluid", "warning" if span > NARROW_BOILING_RANGE
+                     else "info", fluid=fluid.name, span=span, kettle=kettle)]
+    if isinstance(b.fluid, dict):
+        return [warn("user-property-table", name=repr(fluid.name), lo=fluid.T_min,
+                     hi=fluid.T_max)]
+    return []
 
 
 #: Settling of the share of a fixed heat loss on a liquid medium, and the ratings allowed.

@@ -37,20 +37,36 @@ PROFILE_FIELDS = {
 
 @dataclass(frozen=True)
 class RatingWarning:
-    """One finding of the checks: a code of our own, a severity, where, and why."""
+    """One finding of the checks: a code of our own (``rating.rules``), a severity, where,
+    and why.
+
+    ``message`` is the SI text; ``template`` and ``values`` ((name, SI value) pairs, each
+    value's quantity named in the template) let a surface show the same finding in its
+    own units (``rating.rules.render``).
+    """
 
     code: str
     severity: str
     message: str
     z_m: float | None = None
+    template: str = ""
+    values: tuple = ()
 
     def __post_init__(self):
         if self.severity not in SEVERITIES:
             raise ValueError(f"severity {self.severity!r} is not one of {SEVERITIES}")
 
     def to_dict(self) -> dict:
-        return {"code": self.code, "severity": self.severity, "message": self.message,
-                "z_m": _clean(self.z_m)}
+        out = {"code": self.code, "severity": self.severity, "message": self.message,
+               "z_m": _clean(self.z_m)}
+        if self.template:
+            from .rules import quantities
+
+            kinds = quantities(self.template)
+            out["template"] = self.template
+            out["values"] = {k: {"value": _clean(v), "quantity": kinds.get(k, "text")}
+                             for k, v in self.values}
+        return out
 
 
 @dataclass(frozen=True)
@@ -135,11 +151,11 @@ def failed(case, message: str, *, warnings=(), methods=(), profiles=None,
            code: str = "no-convergence", status: str = "failed") -> Result:
     """A result for a case that could not be rated ("failed"), or whose rating was
     stopped by the caller ("cancelled"), with the reason."""
+    from .rules import note
+
     summary = {k: None for k in SUMMARY_KEYS}
-    severity = "info" if status == "cancelled" else "error"
     return Result(case.name, case.type, status, message, summary, profiles or {},
-                  tuple(warnings) + (RatingWarning(code, severity, message),),
-                  tuple(methods))
+                  tuple(warnings) + (note(code, message),), tuple(methods))
 
 
 def cancelled(case, *, methods=()) -> Result:

@@ -340,39 +340,29 @@ def check_methods(methods) -> None:
 
 
 def check_limits(limits) -> None:
-    """Warning thresholds of a ``Limits``."""
-    _between("chf_ratio", limits.chf_ratio, "", 0.0, 1.0, lo_closed=False,
-             note="fraction of the critical heat flux")
-    _optional(_between, "critical_quality", limits.critical_quality, "", 0.0, 1.0,
-              lo_closed=False, hi_closed=False)
-    _non_negative("min_nucleate_flux", limits.min_nucleate_flux, "W/m^2")
-    _non_negative("min_temperature_approach", limits.min_temperature_approach, "K")
-    _optional(_positive, "kern_flux_cap", limits.kern_flux_cap, "W/m^2")
-    # --- thermosiphon limits
-    for name in ("thermosiphon_max_exit_quality", "thermosiphon_max_exit_quality_aqueous"):
-        _between(name, getattr(limits, name), "", 0.0, 1.0, lo_closed=False,
-                 note="vapour mass fraction at the tube exit")
-    lo = _positive("thermosiphon_circulation_ratio_min", limits.thermosiphon_circulation_ratio_min, "")
-    if _positive("thermosiphon_circulation_ratio_max", limits.thermosiphon_circulation_ratio_max,
-                 "") <= lo:
-        _fail("thermosiphon_circulation_ratio_max", limits.thermosiphon_circulation_ratio_max, "",
-              f"must be > thermosiphon_circulation_ratio_min ({lo:g})")
-    _optional(_positive, "thermosiphon_max_flux", limits.thermosiphon_max_flux, "W/m^2")
-    for band in ("", "_vacuum"):
-        lo_name = f"thermosiphon_level_min_fraction{band}"
-        hi_name = f"thermosiphon_level_max_fraction{band}"
-        lo = _between(lo_name, getattr(limits, lo_name), "", 0.0, 2.0,
-                      note="fraction of the tube length")
-        hi = _between(hi_name, getattr(limits, hi_name), "", 0.0, 2.0,
-                      note="fraction of the tube length")
+    """Warning thresholds of a ``Limits``: each within its range (``rating.rules.LIMITS``,
+    the one description of the limits), each band's lower end below its upper."""
+    from .catalogue import QUANTITIES
+    from .rules import LIMITS
+
+    for lim in LIMITS.values():
+        value = getattr(limits, lim.name)
+        if value is None and getattr(type(limits), lim.name) is None:
+            continue  # a limit that is off unless the user sets it
+        unit = QUANTITIES[lim.quantity].replace("-", "")
+        lo, hi = lim.hard
+        if hi is None:
+            (_positive if lim.hard_open[0] else _non_negative)(lim.name, value, unit)
+        else:
+            _between(lim.name, value, unit, lo, hi, lo_closed=not lim.hard_open[0],
+                     hi_closed=not lim.hard_open[1], note=lim.label)
+    for lo_name, hi_name in (
+            ("thermosiphon_circulation_ratio_min", "thermosiphon_circulation_ratio_max"),
+            ("thermosiphon_level_min_fraction", "thermosiphon_level_max_fraction"),
+            ("thermosiphon_level_min_fraction_vacuum", "thermosiphon_level_max_fraction_vacuum")):
+        lo, hi = getattr(limits, lo_name), getattr(limits, hi_name)
         if hi <= lo:
             _fail(hi_name, hi, "", f"must be > {lo_name} ({lo:g})")
-    _non_negative("thermosiphon_min_pressure", limits.thermosiphon_min_pressure, "Pa")
-    _positive("thermosiphon_nozzle_rho_v2", limits.thermosiphon_nozzle_rho_v2, "kg/m/s^2")
-    _between("thermosiphon_max_subcooled_fraction", limits.thermosiphon_max_subcooled_fraction,
-             "", 0.0, 1.0, lo_closed=False, note="fraction of the tube length")
-    # --- kettle limits
-    _check_kettle_limits(limits)
 
 
 # --- thermosiphon loop ---------------------------------------------------------------
@@ -507,17 +497,6 @@ def check_kettle(kettle) -> None:
     _registered("mixture_method", kettle.mixture_method, "mixture", KETTLE_MIXTURE_INPUTS)
     _registered("bundle_max_flux", kettle.bundle_max_flux, "bundle_chf")
     _optional(_positive, "heating_htc", kettle.heating_htc, "W/m^2/K")
-
-
-def _check_kettle_limits(limits) -> None:
-    _positive("kettle_bundle_flux_ratio", limits.kettle_bundle_flux_ratio, "")
-    _between("kettle_min_bundle_factor", limits.kettle_min_bundle_factor, "", 0.0, 1.0,
-             note="Palen's bundle geometry factor Phi_b, at most 1")
-    _positive("kettle_surface_velocity_constant", limits.kettle_surface_velocity_constant, "m/s")
-    _non_negative("kettle_min_freeboard", limits.kettle_min_freeboard, "m")
-    _number("kettle_min_level_over_bundle", limits.kettle_min_level_over_bundle, "m")
-    _positive("kettle_vapour_nozzle_rho_v2", limits.kettle_vapour_nozzle_rho_v2, "kg/m/s^2")
-    _positive("kettle_inlet_nozzle_rho_v2", limits.kettle_inlet_nozzle_rho_v2, "kg/m/s^2")
 
 
 def _check_kettle_case(case) -> None:

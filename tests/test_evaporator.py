@@ -76,7 +76,10 @@ def test_result_json_has_the_documented_keys(rated):
     assert {m["family"] for m in d["methods"]} >= {"flow_boiling", "tube_dryout", "void_fraction"}
     assert all(m["reference"] for m in d["methods"])
     for w in d["warnings"]:
-        assert set(w) == {"code", "severity", "message", "z_m"}
+        assert {"code", "severity", "message", "z_m"} <= set(w)
+        assert set(w) <= {"code", "severity", "message", "z_m", "template", "values"}
+        for v in w.get("values", {}).values():  # each value with its catalogue quantity
+            assert set(v) == {"value", "quantity"}
     assert d["status"] in ("ok", "warnings", "failed")
 
 

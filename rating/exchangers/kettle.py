@@ -99,6 +99,7 @@ from ..errors import PropertyError
 from ..march import Cancelled
 from ..properties import make_fluid
 from ..results import MethodUsed, RatingWarning, Result, cancelled, failed, profiles_from_stations
+from ..rules import note, warn
 from .evaporator import DUTY_CHECK_LENGTH_FACTOR, ProgressShare, inlet_enthalpy, integrate_along_z
 from .kettle_march import InTubeHeating, KettleMarch, PoolBand
 
@@ -730,122 +731,102 @@ def kettle_summary(case, primary, performance, check) -> dict:
 def _warnings(case, primary, s) -> list[RatingWarning]:
     """The generic checks that apply (temperature cross or pinch, Kern's cap, method
     ranges: the stations' regime "pool boiling" keeps the in-tube ones out) and the
-    kettle's own."""
+    kettle's own (``rating.rules``)."""
     kt, outcome, march = primary
-    lim, k = case.limits, case.kettle
     out = checks.evaluate(case, outcome, fluid=kt.fluid, service="kettle")
-    st = outcome.stations
-    q_b = kt.q_bundle_max
-    ratio = lim.kettle_bundle_flux_ratio
-    remedies = ("vapour lanes or a wider pitch" if kt.phi_b < 2.0 * lim.kettle_min_bundle_factor
-                else "a larger bundle diameter, a cooler heating medium or less duty")
-    if s["average_heat_flux_W_m2"] > ratio * q_b:
-        out.append(RatingWarning(
-            "bundle-flux-limit", "warning",
-            f"average heat flux {s['average_heat_flux_W_m2']:.4g} W/m^2 exceeds "
-            f"{ratio:g} x the bundle maximum flux {q_b:.4g} W/m^2 (bundle geometry factor "
-            f"Phi_b = {kt.phi_b:.3f}): vapour blankets the bundle; consider {remedies}", None))
+    out += _bundle(case, kt, outcome.stations, s) + _film_boiling(kt, outcome.stations, march)
+    out += _pool(case, s) + _nozzle_checks(case, s) + _tube_side(case, kt, outcome.stations, s)
+    if (s["exit_quality"] or 0.0) >= 1.0:
+        out.append(warn("kettle-dry", x=s["exit_quality"]))
+    if kt.count_note is not None:
+        out.append(note("tube-count", kt.count_note,
+                        "info" if case.kettle.estimate_tube_count else "warning"))
+    return out
+
+
+def _bundle(case, kt, st, s) -> list[RatingWarning]:
+    """Bundle flux against Palen's maximum, the geometry factor, the smallest flux."""
+    lim, out = case.limits, []
+    q_b, ratio, q_mean = kt.q_bundle_max, lim.kettle_bundle_flux_ratio, s["average_heat_flux_W_m2"]
+    if q_mean > ratio * q_b:
+        remedy = ("vapour lanes or a wider pitch" if kt.phi_b < 2.0 * lim.kettle_min_bundle_factor
+                  else "a larger bundle diameter, a cooler heating medium or less duty")
+        out.append(warn("bundle-flux-limit", q=q_mean, ratio=ratio, q_max=q_b, phi=kt.phi_b,
+                        remedy=remedy))
     elif s["max_heat_flux_W_m2"] > ratio * q_b:
         top = max(st, key=lambda x: x.q)
-        out.append(RatingWarning(
-            "bundle-flux-local", "info",
-            f"local heat flux {top.q:.4g} W/m^2 in the inlet region exceeds {ratio:g} x the "
-            f"bundle maximum flux {q_b:.4g} W/m^2, an average-flux criterion; the average "
-            f"{s['average_heat_flux_W_m2']:.4g} W/m^2 is below it", top.z))
+        out.append(warn("bundle-flux-local", z=top.z, q=top.q, ratio=ratio, q_max=q_b,
+                        q_mean=q_mean))
     if kt.phi_b < lim.kettle_min_bundle_factor:
-        out.append(RatingWarning(
-            "bundle-factor-small", "warning",
-            f"bundle geometry factor Phi_b = {kt.phi_b:.3f} is below "
-            f"{lim.kettle_min_bundle_factor:g}: the bundle is too dense for the vapour to leave; "
-            "use vapour lanes or a wider pitch", None))
+        out.append(warn("bundle-factor-small", phi=kt.phi_b, limit=lim.kettle_min_bundle_factor))
     low = min(st, key=lambda x: x.q)
     if low.q < lim.min_nucleate_flux:
-        out.append(RatingWarning(
-            "low-flux", "warning",
-            f"heat flux falls to {low.q:.4g} W/m^2, below {lim.min_nucleate_flux:.4g} W/m^2 "
-            "for stable nucleate boiling", low.z))
+        out.append(warn("low-flux", "warning", low.z, q=low.q, limit=lim.min_nucleate_flux))
+    return out
+
+
+def _film_boiling(kt, st, march) -> list[RatingWarning]:
+    """Wall superheat beyond the point where the bundle's boiling curve reaches the
+    single-tube maximum flux; the first station only."""
     critical = {}           # band -> wall superheat where its boiling curve reaches q1,max
     for station, band_index in zip(st, march.pass_of_station):
         if band_index not in critical:
             critical[band_index] = kt.bands[band_index].superheat(kt.q_single_max)[0]
-        dT_crit = critical[band_index]
-        if station.q > 0.0 and station.wall_superheat > dT_crit:
-            out.append(RatingWarning(
-                "film-boiling-superheat", "warning",
-                f"wall superheat {station.wall_superheat:.1f} K exceeds {dT_crit:.1f} K, where "
-                f"the bundle's boiling curve reaches the single-tube maximum flux "
-                f"{kt.q_single_max:.4g} W/m^2: transition or film boiling is possible; lower "
-                "steam pressure or a cooler heating medium would help", station.z))
-            break
-    if s["liquid_level_over_bundle_m"] < lim.kettle_min_level_over_bundle:
-        uncovered = -s["liquid_level_over_bundle_m"]
-        crest = s["liquid_level_over_bundle_m"] + k.bundle_top - k.weir_height
-        out.append(RatingWarning(
-            "bundle-uncovered", "warning",
-            f"the liquid level ({k.weir_height:g} m weir plus {crest:.3f} m crest) "
-            + (f"leaves the top {uncovered:.3f} m of the bundle uncovered"
-               if uncovered > 0.0 else
-               f"is only {-uncovered:.3f} m over the bundle (limit "
-               f"{lim.kettle_min_level_over_bundle:g} m)")
-            + "; uncovered tubes are rated as if submerged: raise the weir", None))
+        if station.q > 0.0 and station.wall_superheat > critical[band_index]:
+            return [warn("film-boiling-superheat", z=station.z, dT=station.wall_superheat,
+                         dT_crit=critical[band_index],
+                         where=", where the bundle's boiling curve reaches the single-tube "
+                               f"maximum flux {kt.q_single_max:.4g} W/m^2",
+                         remedy="lower steam pressure or a cooler heating medium would help")]
+    return []
+
+
+def _pool(case, s) -> list[RatingWarning]:
+    """Level over the bundle, freeboard, vapour velocity at the surface."""
+    lim, k, out = case.limits, case.kettle, []
+    over = s["liquid_level_over_bundle_m"]
+    if over < lim.kettle_min_level_over_bundle:
+        state = (f"leaves the top {-over:.3f} m of the bundle uncovered" if over < 0.0 else
+                 f"is only {over:.3f} m over the bundle (limit "
+                 f"{lim.kettle_min_level_over_bundle:g} m)")
+        out.append(warn("bundle-uncovered", weir=k.weir_height,
+                        crest=over + k.bundle_top - k.weir_height, state=state))
     if s["freeboard_m"] < lim.kettle_min_freeboard:
-        out.append(RatingWarning(
-            "freeboard", "warning",
-            f"freeboard {s['freeboard_m']:.3f} m above the liquid is below "
-            f"{lim.kettle_min_freeboard:g} m: entrainment; a larger kettle shell or a lower weir",
-            None))
+        out.append(warn("freeboard", h=s["freeboard_m"], limit=lim.kettle_min_freeboard))
     u, u_max = s["surface_vapour_velocity_m_s"], s["surface_vapour_velocity_limit_m_s"]
     if u > u_max:
         what = (f"vapour velocity at the liquid surface {u:.3g} m/s exceeds {u_max:.3g} m/s"
                 if math.isfinite(u) else "the liquid fills the kettle shell")
-        out.append(RatingWarning(
-            "entrainment", "warning",
-            f"{what}: liquid carry-over; a kettle shell of at least "
-            f"{s['min_kettle_diameter_m']:.3g} m would meet {u_max:.3g} m/s", None))
+        out.append(warn("entrainment", what=what, d_min=s["min_kettle_diameter_m"], u_max=u_max))
+    return out
+
+
+def _nozzle_checks(case, s) -> list[RatingWarning]:
+    """rho v^2 at the vapour outlet and the feed inlet (TEMA)."""
+    lim, out = case.limits, []
     rv2 = s["vapour_outlet_rho_v2_kg_m_s2"]
     if rv2 is not None and rv2 > lim.kettle_vapour_nozzle_rho_v2:
-        out.append(RatingWarning(
-            "nozzle-rho-v2", "warning",
-            f"rho v^2 at the vapour outlet {rv2:.4g} kg/m/s^2 exceeds "
-            f"{lim.kettle_vapour_nozzle_rho_v2:.4g}: a larger or a second vapour nozzle", None))
+        out.append(warn("nozzle-rho-v2", name="vapour outlet", rv2=rv2,
+                        limit=lim.kettle_vapour_nozzle_rho_v2,
+                        remedy="a larger or a second vapour nozzle"))
     rv2 = s["liquid_inlet_rho_v2_kg_m_s2"]
     if rv2 is not None and rv2 > lim.kettle_inlet_nozzle_rho_v2:
-        out.append(RatingWarning(
-            "impingement", "warning",
-            f"rho v^2 at the liquid inlet {rv2:.4g} kg/m/s^2 exceeds "
-            f"{lim.kettle_inlet_nozzle_rho_v2:.4g}: an impingement plate is needed", None))
-    if (s["exit_quality"] or 0.0) >= 1.0:
-        out.append(RatingWarning(
-            "kettle-dry", "error",
-            f"the duty would vaporise all the feed (outlet quality {s['exit_quality']:.3f}): "
-            "nothing overflows the weir, the level falls and tubes uncover; the duty is not "
-            "reachable with this feed", None))
-    if kt.count_note is not None:
-        severity = "info" if k.estimate_tube_count else "warning"
-        out.append(RatingWarning("tube-count", severity, kt.count_note, None))
-    h = kt.heating
-    if h.condensing:
-        x_out = s["heating_outlet_quality"]
-        if case.heating.mass_flow is not None and x_out > TRAP_TOLERANCE:
-            out.append(RatingWarning(
-                "steam-blow-through", "info",
-                f"the steam leaves the last pass with quality {x_out:.3f}: it is not all "
-                "condensed", None))
+        out.append(warn("impingement", rv2=rv2, limit=lim.kettle_inlet_nozzle_rho_v2))
+    return out
+
+
+def _tube_side(case, kt, st, s) -> list[RatingWarning]:
+    """Steam not all condensed, condensate flooding, steam pressure drop, a fixed film."""
+    h, out = kt.heating, []
+    if h.condensing and case.heating.mass_flow is not None:
+        if s["heating_outlet_quality"] > TRAP_TOLERANCE:
+            out.append(warn("steam-blow-through", x=s["heating_outlet_quality"]))
         flooded = [x for x in st if h.quality(x.h) < 0.0]
-        if flooded and case.heating.mass_flow is not None:
-            out.append(RatingWarning(
-                "condensate-flooding", "info",
-                f"the steam is all condensed at z = {flooded[0].z:.3f} m; the last "
-                f"{st[-1].z - flooded[0].z:.3f} m of the path runs full of condensate",
-                flooded[0].z))
-        if s["pressure_drop_heating_Pa"] > STEAM_DP_SHARE * case.heating.pressure:
-            out.append(RatingWarning(
-                "steam-pressure-drop", "warning",
-                f"tube-side pressure drop {s['pressure_drop_heating_Pa']:.4g} Pa is more than "
-                f"{STEAM_DP_SHARE:.0%} of the steam pressure; its fall in condensing temperature "
-                "is not modelled", None))
-    if k.heating_htc is not None:
-        out.append(RatingWarning(
-            "fixed-heating-htc", "info",
-            f"tube-side film coefficient fixed at {k.heating_htc:.4g} W/m^2/K by the input", None))
+        if flooded:
+            out.append(warn("condensate-flooding", z=flooded[0].z, rest=st[-1].z - flooded[0].z))
+    if h.condensing and s["pressure_drop_heating_Pa"] > STEAM_DP_SHARE * case.heating.pressure:
+        out.append(warn("steam-pressure-drop", dp=s["pressure_drop_heating_Pa"],
+                        share=STEAM_DP_SHARE))
+    if case.kettle.heating_htc is not None:
+        out.append(warn("fixed-heating-htc", htc=case.kettle.heating_htc))
     return out

@@ -74,6 +74,7 @@ from ..errors import PropertyError
 from ..march import Cancelled, Marcher, MarchOutcome, solve_counter_current
 from ..properties import make_fluid
 from ..results import SUMMARY_KEYS, RatingWarning, Result, cancelled, failed, profiles_from_stations
+from ..rules import note, warn
 from . import piping
 from .evaporator import (DEFAULT_INCREMENTS, march_summary, boiling_tube, condensate_film,
                          heating_side, methods_used, with_substitutes)
@@ -646,7 +647,7 @@ def _will_not_circulate(case, loop, scan, crossings, curve, methods, n) -> Resul
         notes = "; ".join(sorted({p.note for p in scan if p.note}))
         message = f"no trial circulation of the loop could be rated: {notes}"
         return Result(case.name, case.type, "failed", message, summary, {},
-                      (RatingWarning("no-convergence", "error", message),), methods,
+                      (note("no-convergence", message),), methods,
                       extra={"increments": n, "pressure_balance_curve": curve})
     if not wet:
         message = ("will not circulate: at every flow that leaves liquid in the tubes the loop "
@@ -684,7 +685,7 @@ def _will_not_circulate(case, loop, scan, crossings, curve, methods, n) -> Resul
                    f"{best.W:.3g} kg/s) and the liquid level gives {loop.available:.4g} Pa; "
                    + "; or ".join(helps))
         summary.update(driving_head_deficit_Pa=deficit, liquid_level_needed_m=level)
-    warnings = [RatingWarning("will-not-circulate", "error", message)]
+    warnings = [note("will-not-circulate", message)]
     warnings += [_crossing_warning(c) for c in crossings]
     return Result(case.name, case.type, "failed", message, summary, {}, tuple(warnings), methods,
                   extra={"increments": n, "pressure_balance_curve": curve})
@@ -693,17 +694,8 @@ def _will_not_circulate(case, loop, scan, crossings, curve, methods, n) -> Resul
 def _crossing_warning(c: Crossing) -> RatingWarning:
     """Why a balance is not the operating point: boiled dry, or statically unstable."""
     if c.dry:
-        return RatingWarning(
-            "dry-balance", "error",
-            f"the loop also balances at {c.point.W:.4g} kg/s, but there every drop of the "
-            "liquid evaporates in the tubes (exit quality "
-            f"{c.point.outcome.stations[-1].x:.3f}): a dry, overheated tube, not a "
-            "recirculating operating point")
-    return RatingWarning(
-        "unstable-operating-point", "warning",
-        f"the loop also balances at {c.point.W:.4g} kg/s, where the required pressure "
-        f"difference falls as the flow rises ({c.slope:.3g} Pa s/kg): statically unstable "
-        "(Ledinegg), not an operating point")
+        return warn("dry-balance", W=c.point.W, x=c.point.outcome.stations[-1].x)
+    return warn("unstable-operating-point", W=c.point.W, slope=c.slope)
 
 
 # --------------------------------------------------------------------------- loop checks
@@ -724,130 +716,100 @@ def _aqueous(fluid) -> bool:
 
 
 def _loop_warnings(case, fluid, loop, chosen, crossings, scan, summary) -> list[RatingWarning]:
-    lim, lp = case.limits, case.thermosiphon
-    out: list[RatingWarning] = []
+    """The thermosiphon's own checks (``rating.rules``), after the common ones."""
     W = chosen.point.W
-    stations = chosen.point.outcome.stations
-    L = loop.L
+    out = [_crossing_warning(c) for c in crossings if c.dry or not c.stable]
+    out += _balances(crossings) + _slopes(scan, W)
+    out += _circulation(case, fluid, chosen.point.outcome.stations, loop.L, summary)
+    out += _flux_and_nozzles(case, fluid, loop, summary) + _level(case, loop)
+    if case.required_duty and summary["duty_W"] < case.required_duty:
+        out.append(note("duty-not-reached", f"the duty {summary['duty_W']:.4g} W falls short "
+                        f"of the required {case.required_duty:.4g} W"))
+    if case.boiling.mass_flow is not None:
+        out.append(warn("mass-flow-ignored", m=case.boiling.mass_flow))
+    return out
 
-    for c in crossings:
-        if c.dry or not c.stable:
-            out.append(_crossing_warning(c))
-    others = [c for c in crossings if c.stable and not c.dry and not c.selected]
-    if others:
-        out.append(RatingWarning(
-            "multiple-operating-points", "warning",
-            f"the loop has {len(others) + 1} stable balances ("
-            + ", ".join(f"{c.point.W:.4g}" for c in sorted(crossings, key=lambda c: c.point.W)
-                        if c.stable and not c.dry)
-            + " kg/s); rated at the highest circulation. The loop may settle at another one "
-              "after an upset"))
 
-    # Negative slope of the required pressure difference: where a change of level or duty
-    # could move the loop, it would run away (a flow excursion).
+def _balances(crossings) -> list[RatingWarning]:
+    """More than one stable wet balance: the loop may settle at another one."""
+    stable = sorted((c for c in crossings if c.stable and not c.dry), key=lambda c: c.point.W)
+    if len(stable) < 2:
+        return []
+    return [warn("multiple-operating-points", n=len(stable),
+                 flows=", ".join(f"{c.point.W:.4g}" for c in stable))]
+
+
+def _slopes(scan, W) -> list[RatingWarning]:
+    """Flows where the required pressure difference falls as the flow rises: a change of
+    level or duty that takes the loop there could start a flow excursion."""
     known = [p for p in scan if p.parts and not _dry(p)]
     falling = [(a.W, b.W) for a, b in itertools.pairwise(known) if b.required < a.required]
-    for lo, hi in _merge(falling):
-        near = hi >= 0.5 * W and lo <= 2.0 * W
-        out.append(RatingWarning(
-            "negative-slope", "warning" if near else "info",
-            f"the required pressure difference falls as the flow rises between {lo:.3g} and "
-            f"{hi:.3g} kg/s (operating at {W:.4g} kg/s): a change of level or duty that takes "
-            "the circulation there can start a flow excursion (Ledinegg); more inlet-line "
-            "resistance steadies the loop"))
+    return [warn("negative-slope", "warning" if hi >= 0.5 * W and lo <= 2.0 * W else "info",
+                 lo=lo, hi=hi, W=W) for lo, hi in _merge(falling)]
 
-    # Exit vapour fraction and circulation ratio.
-    x = stations[-1].x
-    x_max = lim.thermosiphon_max_exit_quality_aqueous if _aqueous(fluid) \
+
+def _circulation(case, fluid, stations, L, summary) -> list[RatingWarning]:
+    """Exit vapour fraction, circulation ratio, mist flow, a long subcooled zone."""
+    lim, out = case.limits, []
+    x, aqueous = stations[-1].x, _aqueous(fluid)
+    x_max = lim.thermosiphon_max_exit_quality_aqueous if aqueous \
         else lim.thermosiphon_max_exit_quality
     if x > x_max:
-        out.append(RatingWarning(
-            "exit-quality", "warning",
-            f"exit vapour mass fraction {x:.3f} is above {x_max:.3f}"
-            f"{' (aqueous service)' if _aqueous(fluid) else ''}: too little circulation for the "
-            "duty; fouling and dryout become likely", L))
-    cr = summary["circulation_ratio"]
-    if cr is not None and cr < lim.thermosiphon_circulation_ratio_min:
-        out.append(RatingWarning(
-            "circulation-ratio", "warning",
-            f"circulation ratio {cr:.2f} (kg through the tubes per kg of vapour made, 1 / exit "
-            f"quality) is below the usual "
-            f"{lim.thermosiphon_circulation_ratio_min:g}-{lim.thermosiphon_circulation_ratio_max:g}"))
-    elif cr is None or cr > lim.thermosiphon_circulation_ratio_max:
-        what = "no vapour leaves the tubes" if cr is None else \
-            f"circulation ratio {cr:.1f} is above the usual " \
-            f"{lim.thermosiphon_circulation_ratio_min:g}-{lim.thermosiphon_circulation_ratio_max:g}"
-        out.append(RatingWarning(
-            "circulation-ratio", "info",
-            f"{what}: most of the tube heats liquid; the duty is sensitive to the level"))
-
-    # Mist flow in the tubes (dryout itself is reported by the common checks).
+        out.append(warn("exit-quality", z=L, x=x, limit=x_max,
+                        service=" (aqueous service)" if aqueous else ""))
+    cr, lo, hi = (summary["circulation_ratio"], lim.thermosiphon_circulation_ratio_min,
+                  lim.thermosiphon_circulation_ratio_max)
+    if cr is not None and cr < lo:
+        out.append(warn("circulation-ratio", what=f"circulation ratio {cr:.2f} (kg through "
+                        "the tubes per kg of vapour made, 1 / exit quality) is below the usual "
+                        f"{lo:g}-{hi:g}", effect="too little circulation for the duty"))
+    elif cr is None or cr > hi:
+        out.append(warn("circulation-ratio", "info", what="no vapour leaves the tubes"
+                        if cr is None else f"circulation ratio {cr:.1f} is above the usual "
+                        f"{lo:g}-{hi:g}", effect="most of the tube heats liquid; the duty is "
+                        "sensitive to the level"))
     mist = next((s for s in stations if s.flow_pattern == "mist"), None)
     if mist is not None:
-        out.append(RatingWarning(
-            "mist-flow", "warning",
-            f"mist flow from z = {mist.z:.3f} m (quality {mist.x:.3f}): the wall is dry there",
-            mist.z))
-
-    # Mean heat flux against a published natural-circulation limit.
-    q_max = lim.thermosiphon_max_flux or (KERN_FLUX_AQUEOUS if _aqueous(fluid)
-                                          else KERN_FLUX_ORGANIC)
-    q_mean = summary["mean_heat_flux_W_m2"]
-    if q_mean > q_max:
-        source = "" if lim.thermosiphon_max_flux else (
-            " (Kern 1950, natural circulation, " + ("aqueous" if _aqueous(fluid) else "organics")
-            + "; a conservative screening limit)")
-        out.append(RatingWarning(
-            "thermosiphon-max-flux", "warning",
-            f"mean heat flux {q_mean:.4g} W/m^2 is above {q_max:.4g} W/m^2{source}"))
-
-    # Nozzle momentum flux (TEMA, tube-side nozzles).
-    for key, name in (("inlet_nozzle_rho_v2_kg_m_s2", "inlet"), ("outlet_nozzle_rho_v2_kg_m_s2", "outlet")):
-        if summary[key] > lim.thermosiphon_nozzle_rho_v2:
-            out.append(RatingWarning(
-                "nozzle-rho-v2", "warning",
-                f"{name} nozzle rho v^2 = {summary[key]:.4g} kg/m/s^2 is above "
-                f"{lim.thermosiphon_nozzle_rho_v2:.4g} kg/m/s^2: a larger nozzle is needed"))
-
-    # A long sensible-heating zone (static head suppressing boiling).
+        out.append(warn("mist-flow", z=mist.z, x=mist.x))
     z_sub = summary["subcooled_length_m"]
     if z_sub > lim.thermosiphon_max_subcooled_fraction * L:
-        out.append(RatingWarning(
-            "long-subcooled-zone", "warning",
-            f"the liquid heats without net boiling over {z_sub:.3f} m ({z_sub / L:.0%} of the "
-            f"tube): the static head raises its saturation temperature by "
-            f"{summary['inlet_saturation_rise_K']:.2f} K at the bottom tube sheet", z_sub))
+        out.append(warn("long-subcooled-zone", z=z_sub, share=z_sub / L,
+                        rise=summary["inlet_saturation_rise_K"]))
+    return out
 
-    # Liquid level band, return nozzle, low pressure.
+
+def _flux_and_nozzles(case, fluid, loop, summary) -> list[RatingWarning]:
+    """Mean heat flux against a natural-circulation limit; nozzle rho v^2 (TEMA)."""
+    lim, out = case.limits, []
+    aqueous = _aqueous(fluid)
+    q_max = lim.thermosiphon_max_flux or (KERN_FLUX_AQUEOUS if aqueous else KERN_FLUX_ORGANIC)
+    if summary["mean_heat_flux_W_m2"] > q_max:
+        source = "" if lim.thermosiphon_max_flux else (
+            " (Kern 1950, natural circulation, " + ("aqueous" if aqueous else "organics")
+            + "; a conservative screening limit)")
+        out.append(warn("thermosiphon-max-flux", q=summary["mean_heat_flux_W_m2"], limit=q_max,
+                        source=source))
+    for key, name in (("inlet_nozzle_rho_v2_kg_m_s2", "inlet nozzle"),
+                      ("outlet_nozzle_rho_v2_kg_m_s2", "outlet nozzle")):
+        if summary[key] > lim.thermosiphon_nozzle_rho_v2:
+            out.append(warn("nozzle-rho-v2", name=name, rv2=summary[key],
+                            limit=lim.thermosiphon_nozzle_rho_v2,
+                            remedy="a larger nozzle is needed"))
+    return out
+
+
+def _level(case, loop) -> list[RatingWarning]:
+    """Liquid level band, a submerged return nozzle, a column pressure too low."""
+    lim, lp, out = case.limits, case.thermosiphon, []
     vacuum = loop.P_col < ATMOSPHERE
     lo = lim.thermosiphon_level_min_fraction_vacuum if vacuum else lim.thermosiphon_level_min_fraction
     hi = lim.thermosiphon_level_max_fraction_vacuum if vacuum else lim.thermosiphon_level_max_fraction
-    frac = lp.liquid_level / L
-    if not lo <= frac <= hi:
-        out.append(RatingWarning(
-            "liquid-level", "warning",
-            f"liquid level {lp.liquid_level:.3g} m is {frac:.0%} of the tube length, outside "
-            f"the usual {lo:.0%}-{hi:.0%}{' under vacuum' if vacuum else ''}"))
+    share = lp.liquid_level / loop.L
+    if not lo <= share <= hi:
+        out.append(warn("liquid-level", level=lp.liquid_level, share=share, lo=lo, hi=hi,
+                        vacuum=" under vacuum" if vacuum else ""))
     if loop.submergence > 0.0:
-        out.append(RatingWarning(
-            "return-submerged", "warning",
-            f"the liquid level is {loop.submergence:.3g} m above the return nozzle: the "
-            "return discharges under liquid; a level at the return nozzle can stop the "
-            "circulation and flood the column"))
+        out.append(warn("return-submerged", height=loop.submergence))
     if loop.P_col < lim.thermosiphon_min_pressure:
-        out.append(RatingWarning(
-            "low-pressure", "warning",
-            f"column pressure {loop.P_col:.4g} Pa is below {lim.thermosiphon_min_pressure:.4g} "
-            "Pa, where thermosiphons are not normally used: the static head suppresses boiling"))
-
-    if case.required_duty and summary["duty_W"] < case.required_duty:
-        out.append(RatingWarning(
-            "duty-not-reached", "error",
-            f"the duty {summary['duty_W']:.4g} W falls short of the required "
-            f"{case.required_duty:.4g} W"))
-    if case.boiling.mass_flow is not None:
-        out.append(RatingWarning(
-            "mass-flow-ignored", "info",
-            f"boiling.mass_flow = {case.boiling.mass_flow:g} kg/s is not used: a thermosiphon's "
-            "circulation follows from the pressure balance"))
+        out.append(warn("low-pressure", P=loop.P_col, limit=lim.thermosiphon_min_pressure))
     return out
