@@ -30,6 +30,7 @@ from .runner import RATING, Runner
 from .sketch import UnitSketch
 from .style import STATUS_COLOURS
 from .verdict import verdict
+from .warning_text import rules_html
 
 CAUTION = ("Results are engineering estimates, to be checked by a qualified engineer "
            "under local codes and licensed practice.")
@@ -411,6 +412,8 @@ class MainWindow(QMainWindow):
 
         m = mb.addMenu("&Help")
         self._act(m, "&Methods of this rating", self.show_methods, QKeySequence.HelpContents)
+        self._act(m, "&Warnings Ebullio can give", lambda: self._text_dialog(
+            "Warnings Ebullio can give", rules_html(self.system)))
         self._act(m, "&Caution", self.show_caution)
         self._act(m, "&About Ebullio", self.show_about)
 

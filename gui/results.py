@@ -15,6 +15,7 @@ from rating import catalogue
 
 from . import units
 from .verdict import amount
+from .warning_text import warning_text
 
 NOT_COMPUTED = "not computed"
 GREY = QColor("#888888")
@@ -149,7 +150,8 @@ class WarningsList(QListWidget):
             where = ""
             if w.z_m is not None:
                 where = f" [z = {amount(w.z_m, 'length', system, 3)}]"
-            it = QListWidgetItem(f"{SEVERITY_MARK.get(w.severity, '')}  {w.message}{where}")
+            it = QListWidgetItem(f"{SEVERITY_MARK.get(w.severity, '')}  "
+                                 f"{warning_text(w, system)}{where}")
             it.setForeground(QBrush(QColor(SEVERITY_COLOUR.get(w.severity, "#222222"))))
             it.setToolTip(f"{w.severity}: {w.code}")
             self.addItem(it)

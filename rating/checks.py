@@ -9,7 +9,7 @@ from .correlations import registry
 from .correlations.pool_boiling import lienhard_dhir_1973, nucleate_fluid_constants
 from .march import WETTED_REGIMES
 from .results import RatingWarning
-from .rules import warn
+from .rules import note, warn
 
 
 def critical_superheat(sat, nucleate_method: str, fluid=None) -> float:
@@ -37,8 +37,8 @@ def evaluate(case, outcome, *, fluid, service: str = "evaporator") -> list[Ratin
     out = _dryout(outcome) + _chf_margin(case, outcome, wet)
     out += _film_boiling(case, fluid, boiling) + _low_flux(case, boiling, service)
     out += _approach(case, st) + _kern_cap(case, st)
-    out += [warn("method-range", z=z, note=msg) for msg, z in outcome.range_notes.items()]
-    out += [warn("method-substituted", z=z, note=msg)
+    out += [note("method-range", msg, z=z) for msg, z in outcome.range_notes.items()]
+    out += [note("method-substituted", msg, z=z)
             for msg, z in getattr(outcome, "method_notes", {}).items()]
     return out
 

@@ -15,6 +15,7 @@ rules in that file (a test fails when it is out of date).
 """
 from __future__ import annotations
 
+import dataclasses
 import string
 from dataclasses import dataclass
 
@@ -449,8 +450,19 @@ def warn(code: str, severity: str | None = None, z: float | None = None, **value
 
 
 def note(code: str, text: str, severity: str | None = None, z: float | None = None):
-    """A warning whose message is a text made elsewhere (a solver's, the catalogue's)."""
-    return warn(code, severity, z, note=text)
+    """A warning whose message is a text made elsewhere (a solver's, the catalogue's).
+
+    A text that keeps its own template and values (a crossed validity bound,
+    ``rating.correlations.registry.RangeNote``) lends them to the warning, so that its
+    numbers too are shown in the reader's units; the SI message stays the text's.
+    """
+    made = warn(code, severity, z, note=text)
+    inner = getattr(text, "template", None)
+    if inner is None:
+        return made
+    values = {**dict(text.values), **({"z": z} if z is not None else {})}
+    return dataclasses.replace(made, template=made.template.replace("{note:text}", inner),
+                               values=tuple(values.items()))
 
 
 # --------------------------------------------------------------------------- the list

@@ -21,6 +21,7 @@ from rating.catalogue import (GROUPS, INPUTS, SUMMARY, applies, case_to_draft, g
 from rating.cli import CAUTION
 from rating.vendor import TOLERANCE_BASIS, compare, describe, deviation_text
 from gui.units import SYSTEM_TITLES, format_number, to_display, unit_label
+from gui.warning_text import warning_text
 
 from .figures import case_figures, png, spread_figure, spread_reference
 
@@ -188,7 +189,8 @@ def _warnings(result, units: str):
         sev = f'<span class="error">{esc(w.severity)}</span>' if w.severity == "error" \
             else esc(w.severity)
         out.append(f"<td>W{i}</td><td>{sev}</td><td class=\"num\">{esc(where)}</td>"
-                   f"<td>{esc(w.message)} <span class=\"small\">({esc(w.code)})</span></td>")
+                   f"<td>{esc(warning_text(w, units))} <span class=\"small\">({esc(w.code)})"
+                   "</span></td>")
     return Table('<th width="6%">No.</th><th width="10%">Severity</th>'
                  f'<th width="14%">Position z [{esc(_unit("length", units))}]</th>'
                  "<th>Finding</th>", out)

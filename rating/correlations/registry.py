@@ -159,17 +159,57 @@ class Method:
                 continue
             if (lo is not None and value < lo) or (hi is not None and value > hi):
                 unit = f" {UNITS[key]}" if UNITS.get(key) else ""
-                messages.append(
+                messages.append(RangeNote(
                     f"{self.title}: {key} = {value:.4g}{unit} outside its range "
-                    f"{_fmt(lo)} to {_fmt(hi, '+inf')}{unit}"
-                )
+                    f"{_fmt(lo)} to {_fmt(hi, '+inf')}{unit}", self.title, key, value, lo, hi))
         return messages
+
+
+class RangeNote(str):
+    """The message of a crossed validity bound, keeping its values for other unit systems:
+    ``template`` names each value's catalogue quantity (``rating.rules``), ``values`` holds
+    (name, SI value) pairs. Equal to, and used as, the plain SI message."""
+
+    def __new__(cls, text, title, key, value, lo, hi):
+        note = super().__new__(cls, text)
+        kind = QUANTITIES.get(key)
+        if kind is None:   # dimensionless groups, or a unit with no display quantity
+            unit = f" {UNITS[key]}" if UNITS.get(key) else ""
+            note.template = ("{title:text}: {key:text} = {value:dimensionless:.4g}" + unit
+                             + " outside its range {lo:text} to {hi:text}" + unit)
+            note.values = (("title", title), ("key", key), ("value", value),
+                           ("lo", _fmt(lo)), ("hi", _fmt(hi, "+inf")))
+            return note
+        bound = "{%s:" + kind + ":.4g}"
+        note.template = ("{title:text}: {key:text} = {value:" + kind + ":.4g} outside its range "
+                         + (bound % "lo" if lo is not None else "-inf") + " to "
+                         + (bound % "hi" if hi is not None else "+inf"))
+        note.values = (("title", title), ("key", key), ("value", value)) + tuple(
+            (name, b) for name, b in (("lo", lo), ("hi", hi)) if b is not None)
+        return note
+
+    def __reduce__(self):
+        return (_range_note, (str(self), self.template, self.values))
+
+
+def _range_note(text, template, values):
+    note = str.__new__(RangeNote, text)
+    note.template, note.values = template, values
+    return note
 
 
 #: Units of the quantities a validity range may name (SI); the others are dimensionless.
 UNITS = {
     "P": "Pa", "G": "kg/m^2/s", "D": "m", "L": "m", "q": "W/m^2", "dT": "K", "M": "kg/kmol",
     "boiling_range": "K",
+}
+
+
+#: The catalogue quantity (``rating.catalogue.QUANTITIES``) of a bounded input, for
+#: showing a crossed bound in other units.
+QUANTITIES = {
+    "P": "pressure", "G": "mass_flux", "D": "diameter", "L": "length", "q": "heat_flux",
+    "dT": "temperature_difference", "boiling_range": "temperature_difference",
 }
 
 

@@ -1,0 +1,64 @@
+"""Warnings in the reader's units: one finding's message, and the list of every rule.
+
+A warning keeps its message template and its values in SI, each value with its catalogue
+quantity (``rating.rules``); here they are put in the window's or the report's unit
+system, so a warning reads in the units of the table it sits under. A warning without a
+template (an older result) shows its SI message.
+"""
+from __future__ import annotations
+
+import html
+
+from rating import rules
+
+from . import units
+
+
+def _display(system: str):
+    def fmt(value, quantity, spec):
+        if quantity in ("text", "dimensionless", "fraction", "count", "percent") \
+                or isinstance(value, str) or value is None:
+            return rules.si_text(value, quantity, spec) if value is not None else "not computed"
+        label = units.unit_label(quantity, system)
+        return f"{format(units.to_display(value, quantity, system), spec or '.4g')} {label}"
+    return fmt
+
+
+def warning_text(warning, system: str) -> str:
+    """The message of ``warning`` with every value in the units of ``system``."""
+    if not getattr(warning, "template", ""):
+        return warning.message
+    return rules.render(warning.template, dict(warning.values), _display(system))
+
+
+def rules_html(system: str) -> str:
+    """Every warning Ebullio can give, with its limits (defaults in ``system``'s units)
+    and their sources: the Help menu's list."""
+    out = ["<h3>Warnings Ebullio can give</h3>",
+           "<p>Each limit is an input of the case (group Limits) and can be changed there.</p>",
+           "<table cellspacing=4 cellpadding=2>",
+           "<tr><th align=left>Code</th><th align=left>Severity</th>"
+           "<th align=left>What it tests</th><th align=left>Limit (default)</th></tr>"]
+    for row in rules.rows():
+        limits = "<br>".join(
+            f"{html.escape(x['label'])} ({_default(x, system)})<br>"
+            f"<small>{html.escape(x['source'])}</small>" for x in row["limits"])
+        if row["basis"]:
+            limits += ("<br>" if limits else "") + f"<small>{html.escape(row['basis'])}</small>"
+        types = "" if tuple(row["types"]) == rules.ALL else \
+            f"<br><small>{html.escape(', '.join(row['types']))}</small>"
+        out.append(f"<tr><td valign=top><b>{html.escape(row['code'])}</b>{types}</td>"
+                   f"<td valign=top>{' or '.join(row['severities'])}</td>"
+                   f"<td valign=top>{html.escape(row['tests'])}</td>"
+                   f"<td valign=top>{limits}</td></tr>")
+    out.append("</table>")
+    return "".join(out)
+
+
+def _default(limit: dict, system: str) -> str:
+    value, quantity = limit["default"], limit["quantity"]
+    if value is None:
+        return "off"
+    if units.unit_label(quantity, system) in ("", "–"):
+        return f"{value:g}"
+    return html.escape(units.format_value(value, quantity, system))
