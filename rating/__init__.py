@@ -40,15 +40,18 @@ def rate(case, *, increments=None, progress=None, cancel=None) -> Result:
     increments and, when it returns True, the rating stops with the status
     "cancelled". Every result carries its provenance (``Result.provenance``: Ebullio
     and CoolProp versions, the methods, the case's SHA-256, the UTC time rated).
-    Input errors raise ``InputError`` before any rating starts (they are found when
-    the case is built), and so does an ``increments`` outside
+    Input errors raise ``InputError`` before any rating starts (found when the case is
+    built, or by ``rating.validation.validate``, which this calls: the rules that need
+    fluid properties), and so does an ``increments`` outside
     ``rating.validation.INCREMENTS``; nothing else raises.
     """
     import dataclasses
 
+    from .validation import check_increments, validate
+
     if increments is not None:
-        from .validation import check_increments
         check_increments(increments)
+    validate(case)
     from .exchangers import MonotonicProgress, provenance, rate_case
     from .derived import rate_with_heat_loss, with_inputs_shown
     report = MonotonicProgress(progress)

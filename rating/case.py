@@ -3,8 +3,10 @@
 A case is plain, immutable and picklable so it can be sent to a worker thread or
 another process and rated there. Values are SI throughout (m, Pa, K, kg/s, W).
 Validation of each part (ranges, cross-field checks) lives in ``rating.validation``
-and runs when a part is built; the project file (``rating.project``) reads and
-writes these objects.
+and runs when a part is built, from plain values: building a case never calls the
+property library. The rules that need fluid properties run once, in
+``rating.validation.validate`` (``rating.rate``, the project file and the drafts call
+it). The project file (``rating.project``) reads and writes these objects.
 """
 from __future__ import annotations
 

@@ -483,8 +483,9 @@ def case_to_draft(case) -> dict:
 def draft_to_case(draft: dict):
     """A validated ``Case`` from a draft; raises ``InputError`` with the field path."""
     from .project import from_dict
+    from .validation import validate
 
-    return from_dict(draft, Case)
+    return validate(from_dict(draft, Case))
 
 
 def get_value(draft_or_case, path: str):
@@ -716,7 +717,8 @@ def draft_problems(draft: dict) -> list[Problem]:
 
     Field by field first (kind, required, hard range; usual range as warnings),
     then each part whose fields are sound is built to run its cross-field rules,
-    and the whole case (which needs fluid properties) only when every part is sound.
+    and the whole case, with every rule that needs fluid properties, only when every
+    part is sound.
     """
     if not isinstance(draft, dict):
         return [Problem("", "a case must be an object of fields", "error")]
@@ -748,10 +750,14 @@ def draft_problems(draft: dict) -> list[Problem]:
             problems.append(Problem(path, f"{part}.{exc}" if exc.field else str(exc), "error"))
             bad_parts.add(part)
     if not any(p.severity == "error" for p in problems):
+        from .validation import property_problems
+
         try:
-            draft_to_case(draft)
+            case = from_dict(draft, Case)
         except InputError as exc:
             problems.append(Problem(exc.field or "", str(exc), "error"))
+        else:
+            problems += [Problem(e.field or "", str(e), "error") for e in property_problems(case)]
     return problems
 
 

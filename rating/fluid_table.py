@@ -34,7 +34,14 @@ import math
 import re
 
 from .errors import InputError, OutOfRangeError, PropertyError
-from .properties import SaturationSet, SinglePhaseState, TwoPhaseState
+
+
+def _p():
+    """``rating.properties`` (the property library), imported when a table is first used,
+    so that checking a table as a case is built does not load it."""
+    from . import properties
+
+    return properties
 
 #: Columns of a saturation table, with their units.
 COLUMNS = {
@@ -201,7 +208,7 @@ class SaturationTable:
         v = {k: self._at(k, i, f) for k in COLUMNS if k not in ("T", "P")}
         h_l = self._h_liquid(i, T)
         dPdT = v["h_lv"] / (T * (1.0 / v["rho_v"] - 1.0 / v["rho_l"]))  # Clapeyron
-        return SaturationSet(
+        return _p().SaturationSet(
             P=P, T_sat=T, rho_l=v["rho_l"], rho_v=v["rho_v"], h_l=h_l, h_v=h_l + v["h_lv"],
             h_lv=v["h_lv"], mu_l=v["mu_l"], mu_v=v["mu_v"], k_l=v["k_l"], k_v=v["k_v"],
             cp_l=v["cp_l"], cp_v=v["cp_v"], sigma=v["sigma"],
@@ -222,14 +229,14 @@ class SaturationTable:
     def _liquid(self, P: float, T: float) -> SinglePhaseState:
         i, f = self._segment_T(T)
         cp, mu, k = self._at("cp_l", i, f), self._at("mu_l", i, f), self._at("k_l", i, f)
-        return SinglePhaseState(P, T, self._at("rho_l", i, f), self._h_liquid(i, T), cp, mu, k,
+        return _p().SinglePhaseState(P, T, self._at("rho_l", i, f), self._h_liquid(i, T), cp, mu, k,
                                 cp * mu / k, "liquid")
 
     def _vapour(self, P: float, T: float) -> SinglePhaseState:
         sat = self.saturation(P)
         h = sat.h_v + sat.cp_v * (T - sat.T_sat)
         rho = sat.rho_v * sat.T_sat / T  # ideal gas at constant pressure
-        return SinglePhaseState(P, T, rho, h, sat.cp_v, sat.mu_v, sat.k_v,
+        return _p().SinglePhaseState(P, T, rho, h, sat.cp_v, sat.mu_v, sat.k_v,
                                 sat.cp_v * sat.mu_v / sat.k_v, "gas")
 
     def single_phase(self, P: float, T: float) -> SinglePhaseState:
@@ -258,12 +265,12 @@ class SaturationTable:
         sat = self.saturation(P)
         x = (h - sat.h_l) / sat.h_lv
         if 0.0 <= x <= 1.0:
-            return TwoPhaseState(P, h, sat.T_sat, x, "two-phase")
+            return _p().TwoPhaseState(P, h, sat.T_sat, x, "two-phase")
         if x < 0.0:
             s = self._liquid(P, self._liquid_T(h))
-            return TwoPhaseState(P, h, s.T, x, "subcooled", s.rho, s.cp, s.mu, s.k)
+            return _p().TwoPhaseState(P, h, s.T, x, "subcooled", s.rho, s.cp, s.mu, s.k)
         s = self._vapour(P, sat.T_sat + (h - sat.h_v) / sat.cp_v)
-        return TwoPhaseState(P, h, s.T, x, "superheated", s.rho, s.cp, s.mu, s.k)
+        return _p().TwoPhaseState(P, h, s.T, x, "superheated", s.rho, s.cp, s.mu, s.k)
 
     def temperature(self, P: float, h: float) -> float:
         """Temperature at (P, h) [K]."""

@@ -244,10 +244,12 @@ def to_dict(obj) -> dict:
     return data
 
 
-def from_dict(data, cls=Project, *, source: str = "the data"):
+def from_dict(data, cls=Project, *, source: str = "the data", validate: bool = True):
     """A ``Project`` from a file's data (checked, migrated), or a part from its fields.
 
     ``source`` names the data in messages about the whole file (usually its path).
+    A project's cases are validated (``rating.validation.validate``: the rules that need
+    fluid properties) unless ``validate`` is False: built from plain values only.
     """
     if cls is not Project:
         if not isinstance(data, dict):
@@ -275,6 +277,14 @@ def from_dict(data, cls=Project, *, source: str = "the data"):
     data = migrate(data, source=source)
     project = _decode_dataclass(Project, {k: v for k, v in data.items() if k not in HEADER}, "")
     _check_project(project)
+    if validate:
+        from .validation import validate as check
+
+        for i, case in enumerate(project.cases):
+            try:
+                check(case)
+            except InputError as exc:
+                raise exc.prefixed(f"cases[{i}]") from None
     return project
 
 

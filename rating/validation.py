@@ -7,9 +7,11 @@ rule, and ``InputError.field`` is the field name; the project loader puts the pa
 in front (``cases[0].tubes.outer_diameter = -0.02 m: must be > 0``).
 
 A case is built from already-validated parts, so ``check_case`` checks its own
-fields and the rules that join parts (boiling point against heating temperature,
-critical pressure, shell needed by a liquid heating medium). Those need fluid
-properties and are taken from ``rating.properties``.
+fields and the rules that join parts (shell needed by a liquid heating medium, the
+bundle fitting its shell). Building a case needs no fluid properties: the rules that do
+(pressures given as saturation temperatures, boiling point against heating temperature,
+critical pressure, the methods a fluid allows) run once, in ``validate`` (called by
+``rating.rate``, the project loader and the drafts), which reports every problem.
 """
 from __future__ import annotations
 
@@ -199,21 +201,31 @@ def _derive(part, name: str, value, how: str) -> None:
     object.__setattr__(part, "_derived", {**getattr(part, "_derived", {}), name: how})
 
 
-def _pressure_or_saturation(part, p_name: str, t_name: str, fluid_spec, role: str) -> None:
-    """One of a pressure and its saturation temperature given; the other derived.
+def _pressure_or_saturation(part, p_name: str, t_name: str, role: str) -> None:
+    """One of a pressure and its saturation temperature given, each > 0.
+
+    The pressure of a given temperature is found when the case is validated
+    (``_derive_pressure``): building a part needs no fluid properties.
+    """
+    P, T = getattr(part, p_name), getattr(part, t_name)
+    if T is None and P is None:
+        _fail(p_name, None, "", f"give {p_name} [Pa] or {t_name} [K] ({role})")
+    _optional(_positive, t_name, T, "K")
+    _optional(_positive, p_name, P, "Pa")
+
+
+def _derive_pressure(part, p_name: str, t_name: str, fluid_spec) -> None:
+    """The pressure of a given saturation temperature (``derived_fields``).
 
     A pressure given beside the temperature must be the temperature's own (a part
     copied with both); anything else is refused, since the two would disagree.
     """
-    P, T = getattr(part, p_name), getattr(part, t_name)
-    if T is None:
-        if P is None:
-            _fail(p_name, None, "", f"give {p_name} [Pa] or {t_name} [K] ({role})")
-        _positive(p_name, P, "Pa")
-        return
-    _positive(t_name, T, "K")
+    from .case import derived_fields
     from .properties import make_fluid
 
+    P, T = getattr(part, p_name), getattr(part, t_name)
+    if T is None:
+        return
     try:
         fluid = make_fluid(fluid_spec)
         if not callable(getattr(fluid, "P_sat", None)):
@@ -221,11 +233,9 @@ def _pressure_or_saturation(part, p_name: str, t_name: str, fluid_spec, role: st
         P_T = float(fluid.P_sat(T))
     except PropertyError as exc:
         _fail(t_name, T, "K", str(exc))
-    if P is not None:
-        _positive(p_name, P, "Pa")
-        if abs(P - P_T) > 1e-6 * P_T:
-            _fail(p_name, P, "Pa", f"give {p_name} or {t_name}, not both: {fluid.name} "
-                  f"saturates at {T:.6g} K under {P_T:.6g} Pa")
+    if P is not None and p_name not in derived_fields(part) and abs(P - P_T) > 1e-6 * P_T:
+        _fail(p_name, P, "Pa", f"give {p_name} or {t_name}, not both: {fluid.name} "
+              f"saturates at {T:.6g} K under {P_T:.6g} Pa")
     _derive(part, p_name, P_T, f"saturation pressure of {fluid.name} at {T:.6g} K")
 
 
@@ -254,7 +264,7 @@ def check_boiling(stream) -> None:
         _text("fluid", stream.fluid, "a fluid name")
     _optional(_positive, "mass_flow", stream.mass_flow, "kg/s")  # required by type: check_case
     _pressure_or_saturation(stream, "inlet_pressure", "inlet_saturation_temperature",
-                            stream.fluid, "the pressure at the inlet, or the column's")
+                            "the pressure at the inlet, or the column's")
     _coefficient_override(stream)
     _optional(_positive, "inlet_temperature", stream.inlet_temperature, "K")
     _optional(_between, "inlet_quality", stream.inlet_quality, "", 0.0, 1.0, hi_closed=False)
@@ -291,7 +301,7 @@ def check_heating(medium) -> None:
     else:
         _text("fluid", medium.fluid, "a fluid name" + (" or a property table" if kind == "liquid" else ""))
     if kind == "steam":
-        _pressure_or_saturation(medium, "pressure", "saturation_temperature", medium.fluid,
+        _pressure_or_saturation(medium, "pressure", "saturation_temperature",
                                 "the condensing pressure")
     else:
         if medium.saturation_temperature is not None:
@@ -623,8 +633,53 @@ def check_case(case) -> None:
     from .catalogue import check_hard_ranges  # every number within its catalogue range
     check_hard_ranges(case)
     _check_bundle_fits(case)
-    fluid = _check_temperatures(case)
-    _check_method_choices(case, fluid)
+
+
+# --- the rules that need fluid properties: once, when the case is validated ------------------
+
+def property_problems(case) -> list[InputError]:
+    """Every problem of a built case that needs fluid properties, each naming its field.
+
+    The pressures given as saturation temperatures are derived here (the case's parts are
+    completed in place, ``derived_fields``); then the boiling and heating states, then
+    the method choices the boiling fluid allows. A check that needs an earlier one's
+    result runs only when that one passed.
+    """
+    problems: list[InputError] = []
+
+    def run(check, *args, prefix=""):
+        try:
+            return check(*args) or True
+        except InputError as exc:
+            problems.append(exc.prefixed(prefix))
+            return None
+
+    sound = run(_derive_pressure, case.boiling, "inlet_pressure", "inlet_saturation_temperature",
+                case.boiling.fluid, prefix="boiling")
+    if case.heating.kind == "steam":
+        sound = run(_derive_pressure, case.heating, "pressure", "saturation_temperature",
+                    case.heating.fluid, prefix="heating") and sound
+    if not sound:
+        return problems
+    boiling = run(_boiling_state, case)
+    if boiling is not None:
+        run(_heating_state, case, *boiling[1:])
+        run(_check_method_choices, case, boiling[0])
+    return problems
+
+
+def validate(case):
+    """The case, checked once for every rule that needs fluid properties (``rating.rate``,
+    project files and drafts call it); raises ``InputError`` naming the first problem's
+    field, with every problem in the message."""
+    if getattr(case, "_validated", False):
+        return case
+    problems = property_problems(case)
+    if problems:
+        message = "; ".join(str(p) for p in problems)
+        raise InputError(message, field=problems[0].field)
+    object.__setattr__(case, "_validated", True)
+    return case
 
 
 #: Why a vertical evaporator has one tube pass: in a second pass the two-phase mixture flows
@@ -736,8 +791,9 @@ def _t_sat(fluid, P: float, name: str) -> float:
         _fail(name, P, "Pa", str(exc))
 
 
-def _check_temperatures(case) -> None:
-    boiling, heating = case.boiling, case.heating
+def _boiling_state(case):
+    """The boiling fluid, its saturation temperature at the inlet and the words for it."""
+    boiling = case.boiling
     fluid = _saturating("boiling.fluid", boiling.fluid, "the boiling side")
     P = boiling.inlet_pressure
     if P >= fluid.P_crit:
@@ -754,7 +810,12 @@ def _check_temperatures(case) -> None:
         _fail("boiling.inlet_temperature", boiling.inlet_temperature, "K",
               f"a subcooled inlet must be below the saturation temperature {at};"
               " for a saturated inlet give inlet_quality instead")
+    return fluid, T_sat, at
 
+
+def _heating_state(case, T_sat: float, at: str) -> None:
+    """The heating medium hotter than the boiling point, within its fluid's range."""
+    heating = case.heating
     if heating.kind == "steam":
         steam = _saturating("heating.fluid", heating.fluid, "a condensing heating medium (kind 'steam')")
         if heating.pressure >= steam.P_crit:
@@ -765,14 +826,13 @@ def _check_temperatures(case) -> None:
             _fail("heating.pressure", heating.pressure, "Pa",
                   f"must be hotter than the boiling point {at}; steam at this pressure"
                   f" condenses at {T_hot:.5g} K")
-    else:
-        medium = _fluid("heating.fluid", heating.fluid if isinstance(heating.fluid, str) else
-                        {"name": "user table", "table": heating.fluid})
-        try:
-            medium.single_phase(heating.pressure, heating.inlet_temperature)
-        except PropertyError as exc:
-            _fail("heating.inlet_temperature", heating.inlet_temperature, "K", str(exc))
-        if heating.inlet_temperature <= T_sat:
-            _fail("heating.inlet_temperature", heating.inlet_temperature, "K",
-                  f"must be hotter than the boiling point {at}")
-    return fluid
+        return
+    medium = _fluid("heating.fluid", heating.fluid if isinstance(heating.fluid, str) else
+                    {"name": "user table", "table": heating.fluid})
+    try:
+        medium.single_phase(heating.pressure, heating.inlet_temperature)
+    except PropertyError as exc:
+        _fail("heating.inlet_temperature", heating.inlet_temperature, "K", str(exc))
+    if heating.inlet_temperature <= T_sat:
+        _fail("heating.inlet_temperature", heating.inlet_temperature, "K",
+              f"must be hotter than the boiling point {at}")

@@ -19,12 +19,19 @@ from rating import catalogue as cat
 from rating.case import BoilingStream, HeatingMedium, KettleShell
 from rating.errors import InputError
 from rating.project import from_dict, to_dict
+from rating.validation import validate
 
 SAMPLES = Path(__file__).parent.parent / "samples"
 
 
 def sample(file, index=0):
     return rating.load_project(SAMPLES / file).cases[index]
+
+
+def validated(**parts):
+    """Validate the pentane vaporiser with ``parts`` put in: the parts are completed in place
+    (a pressure given as its saturation temperature is derived at validation)."""
+    return validate(dataclasses.replace(sample("pentane-vaporiser.ebullio"), **parts))
 
 
 def codes(result):
@@ -37,6 +44,8 @@ def test_boiling_pressure_derived_from_its_saturation_temperature_is_coolprops()
     # n-Pentane boiling at 80 degC: CoolProp's PropsSI gives the pressure (bubble line).
     T = 353.15
     stream = BoilingStream("n-Pentane", 1.0, inlet_saturation_temperature=T)
+    assert stream.inlet_pressure is None            # built without the property library
+    validated(boiling=stream)
     assert stream.inlet_pressure == pytest.approx(CP.PropsSI("P", "T", T, "Q", 0, "n-Pentane"),
                                                   rel=1e-9)
 
@@ -44,6 +53,7 @@ def test_boiling_pressure_derived_from_its_saturation_temperature_is_coolprops()
 def test_steam_given_as_saturation_temperature_gives_the_steam_table_pressure():
     # IAPWS-IF97 steam table: saturation at 143.61 degC is 0.4 MPa (to 4 figures).
     steam = HeatingMedium(kind="steam", saturation_temperature=273.15 + 143.61)
+    validated(heating=steam)
     assert steam.pressure == pytest.approx(4.0e5, rel=5e-4)
     assert steam.pressure == pytest.approx(CP.PropsSI("P", "T", 416.76, "Q", 1, "Water"),
                                            rel=1e-9)
@@ -78,12 +88,16 @@ def test_the_steam_table_saturation_temperature_is_shown_for_a_steam_pressure():
 
 def test_the_file_keeps_the_given_temperature_and_leaves_the_pressure_empty():
     stream = BoilingStream("Water", 1.0, inlet_saturation_temperature=373.124)
+    validated(boiling=stream)
     data = to_dict(stream)
     assert data["inlet_pressure"] is None and data["inlet_saturation_temperature"] == 373.124
     again = from_dict(json.loads(json.dumps(data)), BoilingStream)
+    validated(boiling=again)
     assert again.inlet_pressure == stream.inlet_pressure
     # a copy carries both, equal: still one input
-    assert dataclasses.replace(stream, mass_flow=2.0).inlet_pressure == stream.inlet_pressure
+    copy = dataclasses.replace(stream, mass_flow=2.0)
+    validated(boiling=copy)
+    assert copy.inlet_pressure == stream.inlet_pressure
 
 
 @pytest.mark.parametrize("kwargs, field, words", [
@@ -94,9 +108,9 @@ def test_the_file_keeps_the_given_temperature_and_leaves_the_pressure_empty():
      ["critical temperature"]),
 ])
 def test_pressure_and_temperature_refusals_name_the_field(kwargs, field, words):
-    with pytest.raises(InputError) as info:
-        BoilingStream("Water", 1.0, **kwargs)
-    assert info.value.field == field
+    with pytest.raises(InputError) as info:   # when built, or when validated in a case
+        validated(boiling=BoilingStream("Water", 1.0, **kwargs))
+    assert info.value.field in (field, f"boiling.{field}")
     for w in words:
         assert w in str(info.value), str(info.value)
 
@@ -313,10 +327,8 @@ def test_a_faulty_table_is_refused_naming_the_column(change, field, words):
 
 def test_a_pressure_outside_the_table_is_refused_naming_the_range():
     with pytest.raises(InputError) as info:
-        water_evaporator(water_table()).__class__(**{
-            **{f.name: getattr(water_evaporator(water_table()), f.name)
-               for f in dataclasses.fields(water_evaporator(water_table()))},
-            "boiling": BoilingStream(water_table(), 0.25, 8e5)})
+        validate(dataclasses.replace(water_evaporator(water_table()),
+                                     boiling=BoilingStream(water_table(), 0.25, 8e5)))
     assert info.value.field == "boiling.inlet_pressure"
     assert "outside the table" in str(info.value)
 

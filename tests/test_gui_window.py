@@ -139,7 +139,9 @@ def test_choosing_a_warning_marks_its_position_on_every_plot(window, qtbot):
     st = open_rated(qtbot, w)
     placed = [wr for wr in st.result.warnings if wr.z_m is not None]
     assert placed, "the quick sample should carry a placed warning (dryout)"
-    row = next(i for i in range(w.warnings.count()) if f"{placed[0].message}" in w.warnings.item(i).text())
+    from gui.warning_text import warning_text  # the list shows it in the window's units
+    shown = warning_text(placed[0], w.system)
+    row = next(i for i in range(w.warnings.count()) if shown in w.warnings.item(i).text())
     w.warnings.setCurrentRow(row)
     for mark in plotted(qtbot, w).marks:
         assert mark.get_visible()

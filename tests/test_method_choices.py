@@ -17,6 +17,7 @@ import rating
 from rating.case import Case, Tubes
 from rating.correlations import registry
 from rating.errors import InputError
+from rating.validation import validate
 from rating.properties import make_fluid
 
 SAMPLES = Path(__file__).parent.parent / "samples"
@@ -65,8 +66,8 @@ def test_a_declared_choice_rates_and_any_other_is_refused(case_type, orientation
         used = {(m.family, m.name) for m in result.methods}
         assert (family, name) in used
     else:
-        with pytest.raises(InputError) as err:
-            with_method(case, family, name)
+        with pytest.raises(InputError) as err:   # refused before any rating
+            validate(with_method(case, family, name))
         assert err.value.field == CHOICE_PATHS.get(family, f"methods.{family}")
         message = str(err.value)
         assert name in message and all(u in message for u in usable), message

@@ -105,8 +105,9 @@ def test_pdf_pages_header_footer_and_contents(rated, reports):
     whole = " ".join(pages)
     assert case.name in whole
     assert "Does not reach" not in whole and "Duty" in whole
+    from gui.warning_text import warning_text   # each warning in the report's units
     for w in result.warnings:
-        assert words(w.message) in whole, w.code
+        assert words(warning_text(w, "SI")) in whole, w.code
         assert w.code in whole
     comparison = compare(case, result)
     assert words(describe(comparison)) in whole
@@ -120,8 +121,9 @@ def test_html_twin_holds_the_same(rated, reports):
     out, _ = reports["si.html", "SI"]
     text, images = html_text(out)
     assert case.name in text and words(CAUTION) in text
+    from gui.warning_text import warning_text
     for w in result.warnings:
-        assert words(w.message) in text
+        assert words(warning_text(w, "SI")) in text
     assert words(describe(compare(case, result))) in text
     # Self-contained: every figure embedded, nothing fetched from elsewhere.
     assert len(images) >= 2 and all(src.startswith("data:image/png;base64,") for src in images)

@@ -14,6 +14,7 @@ from rating.case import (
 )
 from rating.correlations.registry import REGISTRY, Method
 from rating.errors import InputError, ProjectFileError
+from rating.validation import validate
 
 
 @pytest.fixture(autouse=True)
@@ -35,9 +36,12 @@ LIQUID = dict(kind="liquid", fluid="Water", pressure=5e5, inlet_temperature=400.
 
 
 def refused(cls, base, **changes):
-    """The InputError raised by building ``cls`` from ``base`` with ``changes``."""
+    """The InputError raised by building ``cls`` from ``base`` with ``changes``; a case is
+    validated too (the rules that need fluid properties run there, before any rating)."""
     with pytest.raises(InputError) as info:
-        cls(**{**base, **changes})
+        built = cls(**{**base, **changes})
+        if isinstance(built, Case):
+            validate(built)
     return info.value
 
 
@@ -264,10 +268,11 @@ def test_case_refusals(changes, field, fragments):
 # --- Case: rules that need properties ---------------------------------------------------------
 
 def test_valid_cases_for_three_fluids():
-    Case(**case_kwargs(question="area_for_duty", required_duty=1e6, increments=10))
-    Case(**case_kwargs(boiling=BoilingStream("R134a", 1.0, 414607.5, inlet_quality=0.2)))
-    Case(**case_kwargs(boiling=BoilingStream("n-Pentane", 1.0, 3e5, inlet_temperature=330.0),
-                       heating=HeatingMedium(**LIQUID), shell=Shell(**SHELL), increments=5000))
+    validate(Case(**case_kwargs(question="area_for_duty", required_duty=1e6, increments=10)))
+    validate(Case(**case_kwargs(boiling=BoilingStream("R134a", 1.0, 414607.5, inlet_quality=0.2))))
+    validate(Case(**case_kwargs(boiling=BoilingStream("n-Pentane", 1.0, 3e5, inlet_temperature=330.0),
+                                heating=HeatingMedium(**LIQUID), shell=Shell(**SHELL),
+                                increments=5000)))
 
 
 def test_unknown_boiling_fluid_names_the_field_and_a_suggestion():
@@ -341,8 +346,8 @@ def test_a_boiling_fluid_without_transport_properties_is_refused():
     # CoolProp 8 has no thermal conductivity model for cyclohexane (common knowledge of
     # its fluid library, checked here by the refusal's own message): the rating needs it.
     with pytest.raises(InputError) as err:
-        Case(name="no transport", tubes=Tubes(count=10, length=2.0, outer_diameter=0.0254, bwg=14),
+        validate(Case(name="no transport", tubes=Tubes(count=10, length=2.0, outer_diameter=0.0254, bwg=14),
              boiling=BoilingStream(fluid="Cyclohexane", mass_flow=1.0, inlet_pressure=4e5),
-             heating=HeatingMedium(kind="steam", pressure=10e5))
+             heating=HeatingMedium(kind="steam", pressure=10e5)))
     assert err.value.field == "boiling.fluid"
     assert "conductivity" in str(err.value) and "choose a fluid" in str(err.value)
