@@ -34,9 +34,11 @@ KINDS = (("sweep", "Sweep"), ("spread", "Method spread"), ("envelope", "Operatin
 # Colour of each limit of the envelope (its boundary and the points that fail it first).
 LIMIT_COLOURS = {"duty": C["blue"], "critical_flux": C["vermillion"],
                  "circulation": C["purple"], "stability": C["orange"],
-                 "entrainment": C["green"]}
+                 "entrainment": C["sky"],
+                 "feed": "#9a7d00"}    # Okabe-Ito yellow, darkened to read on white
 SHORT = {"duty": "duty not met", "critical_flux": "dryout / critical flux",
-         "circulation": "no circulation", "stability": "unstable", "entrainment": "entrainment"}
+         "circulation": "no circulation", "stability": "unstable", "entrainment": "entrainment",
+         "feed": "feed boils dry"}
 
 
 class _Signals(QObject):
@@ -263,7 +265,7 @@ class StudiesPanel(QWidget):
         self.table.verticalHeader().setVisible(False)
         split.addWidget(self.plot)
         split.addWidget(self.table)
-        self.plot.setMinimumHeight(190)
+        self.plot.setMinimumHeight(160)
         # the header and two rows stay in sight however small the window
         self.table.setMinimumHeight(self.table.horizontalHeader().sizeHint().height()
                                     + 2 * self.table.verticalHeader().defaultSectionSize()

@@ -374,3 +374,29 @@ def test_a_cancelled_fit_says_so(chiller):
                  cancel=lambda: True)
     assert result.status == "cancelled"
     assert result.uncertainty == {"boiling.fouling_resistance": None}
+
+
+def kettle_exit_quality(case):
+    return rating.rate(case).summary["exit_quality"]
+
+
+def test_kettle_envelope_marks_a_feed_that_the_bundle_boils_dry(kettle):
+    """A kettle's feed must exceed what the bundle boils off, or nothing overflows the weir
+    (the engine refuses such a rating: "feed-boiled-dry"). A hotter heating medium boils
+    off more, so the least feed that keeps the pool rises with the steam pressure: a feed
+    that is enough at the lower pressure falls short at the higher one, never the other
+    way, and the smallest feeds fall short at every pressure."""
+    feed, p = kettle.boiling.mass_flow, kettle.heating.pressure
+    env = envelope(kettle, Variation("boiling.mass_flow", (0.25 * feed, 0.8 * feed, 1.3 * feed)),
+                   Variation("heating.pressure", (0.7 * p, 1.3 * p)), executor=InlineExecutor())
+    assert "feed" in env.limits
+    within = env.within["feed"]
+    # The sample boils off more than a quarter of its own feed (its exit quality): a quarter
+    # of the feed is less than the same bundle boils off at that duty.
+    assert kettle_exit_quality(kettle) > 0.25
+    assert list(within[0]) == [False, False]
+    for row in within:                              # never enough only at the hotter steam
+        assert not (row[0] is False and row[1] is True)
+    assert any(list(row) == [True, False] for row in within)    # the edge lies in the grid
+    failed = env.points[0]
+    assert failed.status == "failed" and "boil off" in failed.message

@@ -11,7 +11,10 @@ exchanger type:
 * ``stability`` (thermosiphon): no falling branch of the loop's pressure balance near
   the operating point (Ledinegg) and a single stable balance;
 * ``entrainment`` (kettle): the vapour velocity at the liquid surface is within its
-  limit and the freeboard suffices (margin: 1 - velocity / limit).
+  limit and the freeboard suffices (margin: 1 - velocity / limit);
+* ``feed`` (kettle): the feed exceeds what the bundle boils off at the full level, so
+  liquid overflows the weir; below it the level falls and tubes uncover, a state the
+  rating refuses to give a duty for (its "feed-boiled-dry" failure).
 
 A limit that cannot be judged at a point (the rating failed for another reason)
 is None there. The engine returns the grid, the margins and the classification;
@@ -34,11 +37,12 @@ LIMITS = {
     "circulation": "The thermosiphon circulates",
     "stability": "The thermosiphon circulation is stable",
     "entrainment": "No liquid entrainment from the kettle",
+    "feed": "The kettle's feed keeps the pool at the weir",
 }
 _TYPE_LIMITS = {
     "evaporator": ("duty", "critical_flux"),
     "thermosiphon": ("duty", "critical_flux", "circulation", "stability"),
-    "kettle": ("duty", "critical_flux", "entrainment"),
+    "kettle": ("duty", "critical_flux", "entrainment", "feed"),
 }
 
 
@@ -89,8 +93,14 @@ def _entrainment(point: Point, case, required):
     return not ({"entrainment", "freeboard"} & point.warning_codes()), margin
 
 
+def _feed(point: Point, case, required):
+    if "feed-boiled-dry" in point.warning_codes():
+        return False, None
+    return (True, None) if point.rated else (None, None)
+
+
 _JUDGES = {"duty": _duty, "critical_flux": _critical_flux, "circulation": _circulation,
-           "stability": _stability, "entrainment": _entrainment}
+           "stability": _stability, "entrainment": _entrainment, "feed": _feed}
 
 
 @dataclass(frozen=True)
