@@ -11,6 +11,7 @@ from __future__ import annotations
 
 import io
 import math
+import textwrap
 
 from matplotlib.figure import Figure
 from matplotlib.patches import Circle, Patch
@@ -344,8 +345,10 @@ def spread_figure(spread) -> Figure | None:
         return None
     ax.axvline(0.0, color=BLACK, lw=0.8)
     ax.set_yticks(ypos)
-    ax.set_yticklabels([t + ("  (the case's)" if m[0] == spread.chosen else "")
-                        for t, m in zip(titles, spread.methods)], fontsize=FONT_PT - 1)
+    # long titles on two lines: the left margin holds about 34 characters
+    ax.set_yticklabels([textwrap.fill(t + (" (the case's)" if m[0] == spread.chosen else ""),
+                                      34) for t, m in zip(titles, spread.methods)],
+                       fontsize=FONT_PT - 1, linespacing=0.95)
     ax.set_ylim(-0.6, rows - 0.4)
     lo, hi = ax.get_xlim()
     span = max(abs(lo), abs(hi), 1.0)
