@@ -77,7 +77,10 @@ def _parser():
                    help="increments along the heated length (default: the case's or the engine's)")
     p.add_argument("--report", metavar="OUT", help="write a rating report, OUT.pdf or OUT.html")
     p.add_argument("--units", choices=REPORT_UNITS, default="SI",
-                   help="unit system of the report (default SI)")
+                   help="unit system of the table, its warnings and the report: SI (kW, kPa, "
+                        "degC, mm), metric (kW, bar, degC, kg/h) or US (Btu/h, psia, degF, "
+                        "lb/h); pressures absolute (default SI). --json and --csv stay in SI "
+                        "base units")
     p.add_argument("--spread", metavar="FAMILY",
                    help="with --report: add a section with each case rated by every "
                         "applicable method of FAMILY (the families of ebullio-study --spread)")
@@ -199,18 +202,21 @@ def csv_names(names) -> list[str]:
     return out
 
 
-def vendor_table(comparison) -> str:
-    """The vendor comparison of one case, beside the summary table."""
-    from .catalogue import vendor_label
+def vendor_table(comparison, display=None) -> str:
+    """The vendor comparison of one case, beside the summary table (same units)."""
+    from .catalogue import input_field, vendor_label
     from .vendor import describe, deviation_text
 
+    show = display or BaseUnits()
     lines = [f"  Vendor figures{f' ({comparison.source})' if comparison.source else ''}:"
              f" {describe(comparison)}"]
     for r in comparison.rows:
-        unit = label_unit(r.key or r.figure)[1]
+        quantity = input_field(f"vendor.{r.figure}").quantity
+        vendor, unit = show.value(r.vendor, quantity)
+        ebullio = show.value(r.ebullio, quantity)[0]
         note = f"  ({r.note})" if r.note else ""
-        lines.append(f"    {vendor_label(r.figure):<28} vendor {format_figure(r.vendor):>10}"
-                     f"  Ebullio {format_figure(r.ebullio):>10} {unit:<7}"
+        lines.append(f"    {vendor_label(r.figure):<28} vendor {vendor:>10}"
+                     f"  Ebullio {ebullio:>10} {unit:<7}"
                      f" {deviation_text(r) if r.deviation is not None else '':>14}  {r.verdict}{note}")
     return "\n".join(lines)
 
@@ -233,6 +239,23 @@ def write_csv(result, path: Path) -> Path:
 
 
 # --- the readable table ----------------------------------------------------------------
+
+class BaseUnits:
+    """How the table shows a value and a warning when no display units are given (the
+    engine alone, ``python -m rating.cli``): SI base units (W, Pa, K) and each warning's
+    SI message. The console command passes the desktop's display units instead
+    (``gui.report.command``): any object with these two methods will do."""
+
+    def value(self, value, quantity: str) -> tuple[str, str]:
+        """The number's text and its unit label."""
+        from .catalogue import QUANTITIES
+
+        unit = QUANTITIES.get(quantity, "")
+        return format_figure(value), "" if unit in ("-", "") else unit
+
+    def warning(self, warning) -> str:
+        return warning.message
+
 
 def label_unit(key: str) -> tuple[str, str]:
     """Label and SI unit of a summary key, from the catalogue (the key itself if unknown)."""
@@ -260,18 +283,24 @@ def format_figure(v) -> str:
     return text
 
 
-def table(result) -> str:
-    """A readable summary of one result: every summary figure with the catalogue's label
-    and SI unit (the units the warnings are written in), then the warnings."""
+def table(result, display=None) -> str:
+    """A readable summary of one result: every summary figure with the catalogue's label,
+    then the warnings, figures and warnings in the same units (``display``, else
+    ``BaseUnits``)."""
+    from .catalogue import SUMMARY
+
+    show = display or BaseUnits()
     lines = [f"Case: {result.name}  ({result.type})  status: {result.status}"]
     if result.message and result.message != "rated":
         lines.append(f"  {result.message}")
     for key, value in result.summary.items():
-        label, unit = label_unit(key)
-        lines.append(f"  {label:<40} {format_figure(value):>14}  {unit}".rstrip())
+        field = SUMMARY.get(key)
+        label = field.label if field is not None else key
+        text, unit = show.value(value, field.quantity if field is not None else "dimensionless")
+        lines.append(f"  {label:<40} {text:>14}  {unit}".rstrip())
     for w in result.warnings:
-        where = f" at z = {w.z_m:.3f} m" if w.z_m is not None else ""
-        lines.append(f"  [{w.severity}] {w.code}{where}: {w.message}")
+        where = f" at z = {' '.join(show.value(w.z_m, 'length'))}" if w.z_m is not None else ""
+        lines.append(f"  [{w.severity}] {w.code}{where}: {show.warning(w)}")
     return "\n".join(lines)
 
 
@@ -316,7 +345,7 @@ def _check_report(args, report_writer) -> None:
     prepare_folder(path.parent if str(path.parent) else ".", "--report")
 
 
-def _run(args, report_writer=None) -> int:
+def _run(args, report_writer=None, display=None) -> int:
     from . import load_project, rate
     from .validation import check_increments
     from .vendor import compare
@@ -336,8 +365,9 @@ def _run(args, report_writer=None) -> int:
                                      for r, v in zip(results, comparisons)]},
                           indent=1, allow_nan=False) + "\n"
     else:
-        text = "".join(table(r) + ("\n" + vendor_table(v) if v is not None else "") + "\n\n"
-                       for r, v in zip(results, comparisons)) + CAUTION + "\n"
+        show = display(args.units) if display is not None else None
+        text = "".join(table(r, show) + ("\n" + vendor_table(v, show) if v is not None else "")
+                       + "\n\n" for r, v in zip(results, comparisons)) + CAUTION + "\n"
     write_out(text)
     if folder is not None:
         for r, name in zip(results, csv_names(r.name for r in results)):
@@ -358,12 +388,13 @@ def _run(args, report_writer=None) -> int:
     return code
 
 
-def main(argv=None, report_writer=None) -> int:
+def main(argv=None, report_writer=None, display=None) -> int:
     """Run the command. ``report_writer(project, cases, results, path, units, source_path)``
     writes ``--report`` (with ``spread`` and ``increments`` when ``--spread`` is given);
-    without one, ``--report`` is refused."""
+    without one, ``--report`` is refused. ``display(units)`` gives the table's units (an
+    object like ``BaseUnits``); without it the table is in SI base units."""
     args = _parser().parse_args(argv)
-    return guarded(lambda: _run(args, report_writer))
+    return guarded(lambda: _run(args, report_writer, display))
 
 
 if __name__ == "__main__":  # pragma: no cover

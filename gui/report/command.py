@@ -21,10 +21,32 @@ def _writer(project, cases, results, path, units, source_path=None, spread=None,
         raise InputError(f"--report: {exc}") from None
 
 
+class DisplayUnits:
+    """The table of ``ebullio-rate`` in the units of ``--units``, the desktop's and the
+    report's: figures and the values inside warnings alike (no Qt imported)."""
+
+    def __init__(self, system: str):
+        self.system = system
+
+    def value(self, value, quantity: str) -> tuple[str, str]:
+        from gui import units
+
+        label = units.unit_label(quantity, self.system)
+        label = "" if label in ("-", "–") else label
+        if value is None or isinstance(value, str):
+            return units.format_number(value), label
+        return units.format_number(units.to_display(value, quantity, self.system)), label
+
+    def warning(self, warning) -> str:
+        from gui.warning_text import warning_text
+
+        return warning_text(warning, self.system)
+
+
 def main(argv=None) -> int:
     from rating.cli import main as rate_main
 
-    return rate_main(argv, report_writer=_writer)
+    return rate_main(argv, report_writer=_writer, display=DisplayUnits)
 
 
 if __name__ == "__main__":  # pragma: no cover
