@@ -21,7 +21,7 @@ ROOT = Path(__file__).resolve().parent.parent
 sys.path.insert(0, str(ROOT))
 
 import rating  # noqa: E402
-from rating.exchangers import kettle_march  # noqa: E402
+from rating import pool_march  # noqa: E402
 from timing import cold_rating_times, property_share  # noqa: E402
 
 TARGET_MS = 100.0
@@ -30,17 +30,17 @@ TARGET_MS = 100.0
 def marches(case) -> int:
     """Tube-side marches in one rating of the case."""
     count = [0]
-    run = kettle_march.KettleMarch.run
+    run = pool_march.PoolMarcher.run
 
     def counting(self, h0):
         count[0] += 1
         return run(self, h0)
 
-    kettle_march.KettleMarch.run = counting
+    pool_march.PoolMarcher.run = counting
     try:
         rating.rate(case)
     finally:
-        kettle_march.KettleMarch.run = run
+        pool_march.PoolMarcher.run = run
     return count[0]
 
 

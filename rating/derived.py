@@ -157,3 +157,13 @@ def with_inputs_shown(case, result):
         status = "warnings"
     return dataclasses.replace(result, status=status, summary={**result.summary, **summary},
                                warnings=result.warnings + tuple(warnings))
+
+
+def inlet_enthalpy(case, fluid) -> float:
+    """The boiling stream's inlet specific enthalpy [J/kg], from its inlet temperature, or
+    its quality at saturation (0 when neither is given)."""
+    b = case.boiling
+    if b.inlet_temperature is not None:
+        return fluid.enthalpy(b.inlet_pressure, b.inlet_temperature)
+    sat = fluid.saturation(b.inlet_pressure)
+    return sat.h_l + (b.inlet_quality or 0.0) * sat.h_lv

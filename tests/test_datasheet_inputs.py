@@ -402,7 +402,7 @@ def test_a_multiplier_scales_the_methods_own_value_at_each_station():
     # Gungor-Winterton (1986) evaluated afresh at a station's state and flux, times 1.3;
     # the shell side's Bell-Delaware coefficient at the station's temperature, times 0.8.
     from rating.correlations.flow_boiling import flow_boiling_htc
-    from rating.exchangers.evaporator import heating_side
+    from rating.exchangers.tube_boiling import heating_side
     from rating.properties import make_fluid
 
     case = with_fields(sample("chiller-evaporator.ebullio"), boiling__htc_factor=1.3,

@@ -236,7 +236,8 @@ def _clausius_clapeyron(p):
 SAMPLES = Path(__file__).resolve().parent.parent / "samples"
 
 
-@pytest.mark.parametrize("sample", ["pentane-vaporiser.ebullio", "chiller-evaporator.ebullio", "stripper-reboiler.ebullio"])
+@pytest.mark.parametrize("sample", ["pentane-vaporiser.ebullio", "chiller-evaporator.ebullio",
+                                    "stripper-reboiler.ebullio"])
 def test_profiles_of_the_parts_recombine_into_the_boiling_coefficient(sample):
     # the rated profiles: in saturated boiling the parts recombine by the method's rule;
     # in subcooled boiling (Liu-Winterton's subcooled form, n = 2) likewise; single phase

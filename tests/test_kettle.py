@@ -1,4 +1,5 @@
-"""The kettle reboiler, rated whole (rating/exchangers/kettle.py and kettle_march.py).
+"""The kettle reboiler, rated whole (rating/exchangers/kettle.py and bundle_pool.py, the
+tube-side path rating/pool_march.py).
 
 Checked against things outside the project: the Wolverine Engineering Data Book's
 kettle design example (bundle factor, maximum flux, mixture factor, coefficient and

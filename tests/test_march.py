@@ -18,7 +18,8 @@ import pytest
 
 from rating.correlations import registry
 from rating.correlations.registry import Method
-from rating.march import BoilingTube, HeatingSide, Marcher, solve_counter_current
+from rating.boiling_march import BoilingTube, Marcher
+from rating.march import HeatingSide, solve_counter_current
 
 CP = 4000.0      # J/kg/K, both stand-in liquids
 H_LV = 2.0e6     # J/kg

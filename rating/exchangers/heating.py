@@ -1,4 +1,6 @@
-"""Heating media on the shell side of a tube bundle, as the march sees them.
+"""Heating media as the march sees them from the tube wall.
+
+On the shell side of a tube bundle (evaporator, thermosiphon):
 
 Condensing steam: saturated at its pressure, film condensation on the tube
 outside (Nusselt 1916, mean over the tube height for vertical tubes; Nusselt's
@@ -8,6 +10,10 @@ coefficient depends on the local flux and is inverted in closed form.
 Single-phase liquid or gas: its specific enthalpy is the state; the shell-side
 coefficient comes from Bell-Delaware (Kern as an option) at the local bulk
 temperature; co- or counter-current with the boiling fluid.
+
+Inside the tubes, against a boiling pool (kettle: ``InTubeHeating``): steam
+condensing (Shah 1979 or Chato 1962, whichever is larger), then its condensate, or a
+liquid, pass after pass.
 """
 from __future__ import annotations
 
@@ -15,9 +21,11 @@ import bisect
 import math
 
 from ..correlations import registry
+from ..correlations.single_phase import htc_tube_single_phase
 from ..errors import PropertyError
 from ..correlations.shell_side import ShellGeometry
-from ..march import HeatingSide
+from ..march import PAST_EVENT, HeatingSide
+from ..properties import SinglePhaseState
 
 
 class SteamHeating(HeatingSide):
@@ -242,3 +250,194 @@ def shell_geometry(case) -> ShellGeometry:
 def tube_rows(case) -> int:
     """Tube rows in a vertical plane of a horizontal bundle (for Kern's row correction)."""
     return max(1, int(round(math.sqrt(case.tubes.count))))
+
+
+#: Largest quality the in-tube condensation coefficient is evaluated at: Shah's form
+#: falls to 0 at x = 1 (no condensate film), the limit of a film of zero thickness.
+_X_MAX_CONDENSING = 0.9999
+#: Chato's (1962) constant for stratified condensation inside a horizontal tube [memory].
+CHATO_C = 0.555
+#: Condensate within this of its saturation temperature takes the saturated liquid's
+#: properties [K].
+_NEAR_SATURATION = 0.5
+
+
+class InTubeHeating:
+    """The heating medium inside the tubes; its state is its specific enthalpy h [J/kg].
+
+    Condensing steam (``condensing``): saturated at its inlet pressure (the tube-side
+    pressure drop is reported, not fed back into the temperature), the larger of Shah
+    (1979) and Chato (1962) while two-phase (``film``), then single-phase condensate.
+    A liquid: single phase throughout. The film coefficient is on the inside surface;
+    ``fixed_htc`` replaces the correlations.
+    """
+
+    def __init__(self, fluid, pressure, mass_flow, *, D_i, tubes_per_pass, condensing,
+                 single_phase_method, two_phase_friction, roughness, fixed_htc=None,
+                 htc_factor=1.0):
+        self.fluid = fluid
+        self.pressure = pressure
+        self.mass_flow = mass_flow
+        self.D_i = D_i
+        self.tubes_per_pass = tubes_per_pass
+        self.condensing = condensing
+        self.sat = fluid.saturation(pressure) if condensing else None
+        self.single_phase_method = single_phase_method
+        self.condensation = registry.get("shah_1979")
+        self.friction = registry.get(two_phase_friction)
+        self.colebrook = registry.get("colebrook_1939")
+        self.roughness = roughness
+        self.fixed_htc = fixed_htc
+        self.htc_factor = htc_factor  # a user's multiplier on the correlations
+        self.chato_C1 = None
+        if condensing:
+            # Chato (1962): Nusselt's horizontal-cylinder film with C = 0.555 on the inside
+            # diameter; its coefficient at a 1 K wall subcooling.
+            s = self.sat
+            self.chato_C1 = registry.get("nusselt_horizontal_tube").function(
+                D_i, 1.0, s.rho_l, s.rho_v, s.mu_l, s.k_l, s.h_lv, C=CHATO_C)
+        self.range_notes: dict[str, float] = {}
+        self._T: dict[float, float] = {}
+        self._props: dict[float, object] = {}
+        self._table = None
+        self._table_for = None
+
+    def tabulate(self, T_lo, h_hi):
+        """Take the liquid's (or the condensate's) temperature from a T(h) table from
+        T_lo up to the enthalpy h_hi (the inlet's, or the condensate's saturation),
+        instead of a (P, h) flash per state (``heating.EnthalpyTable``)."""
+        if self.condensing:
+            h_hi = self.sat.h_l
+        if self._table_for == (T_lo, h_hi):
+            return
+        self._table_for = (T_lo, h_hi)
+        T_lo = max(T_lo, getattr(self.fluid, "T_min", T_lo))
+        # the condensate's table ends just below saturation, where a (P, T) state is liquid
+        T_hi = self.sat.T_sat - 1e-3 if self.condensing else self.temperature(h_hi)
+        self._table = EnthalpyTable.build(self.fluid, self.pressure, T_lo, T_hi) \
+            if T_hi > T_lo else None
+
+    @property
+    def G(self) -> float:
+        """Mass flux in one tube [kg/m^2/s]."""
+        return self.mass_flow / (self.tubes_per_pass * math.pi * self.D_i ** 2 / 4.0)
+
+    def quality(self, h):
+        """Steam quality at h (negative: subcooled condensate); None for a liquid."""
+        if not self.condensing:
+            return None
+        return (h - self.sat.h_l) / self.sat.h_lv
+
+    def temperature(self, h) -> float:
+        if self.condensing and h >= self.sat.h_l:
+            return self.sat.T_sat
+        if self._table is not None:
+            T = self._table.temperature(h)
+            if T is not None:
+                return T
+        T = self._T.get(h)
+        if T is None:
+            if len(self._T) > 4096:
+                self._T.clear()
+            T = self._T[h] = self.fluid.temperature(self.pressure, h)
+        return T
+
+    def _single(self, T):
+        # Properties change slowly with T; a 0.1 K grid keeps the property calls down.
+        key = round(T, 1)
+        s = self._props.get(key)
+        if s is None:
+            sat = self.sat
+            if sat is not None and key > sat.T_sat - _NEAR_SATURATION:
+                # condensate just below saturation: the saturated liquid's (a flash at a
+                # grid point on or above T_sat would fall on the saturation line)
+                s = SinglePhaseState(sat.P, sat.T_sat, sat.rho_l, sat.h_l, sat.cp_l, sat.mu_l,
+                                     sat.k_l, sat.Pr_l, "liquid")
+            else:
+                s = self.fluid.single_phase(self.pressure, key)
+            self._props[key] = s
+        return s
+
+    def film(self, h):
+        """The inside film at the state h: (constant htc, Chato's C1 or None) [W/m^2/K].
+
+        Condensing, the film coefficient is the larger of Shah's (1979, shear-controlled
+        annular film, independent of the flux) and Chato's (1962, gravity-controlled
+        stratified film, htc = C1 dT^-1/4, so htc = C1^(4/3) q^(-1/3)): Shah's falls with
+        the mass flux as G^0.8 and alone would starve a steam kettle at low flux (the
+        steam flow follows the duty behind a trap), where condensate drains by gravity.
+        """
+        if self.fixed_htc is not None:
+            return self.fixed_htc, None
+        f = self.htc_factor
+        x = self.quality(h)
+        if x is not None and x >= 0.0:  # Chato's htc = C1^(4/3) q^(-1/3): C1 scales as f^(3/4)
+            return f * self._shah(x), self.chato_C1 * f ** 0.75
+        s = self._single(self.temperature(h))
+        return f * htc_tube_single_phase(self.G, self.D_i, s.mu, s.k, s.cp,
+                                         method=self.single_phase_method, heating=False), None
+
+    def _shah(self, x):
+        avail = self.sat.as_dict()
+        avail.update(G=self.G, x=min(x, _X_MAX_CONDENSING), D=self.D_i)
+        return self.condensation(avail)
+
+    @staticmethod
+    def film_drop(film, q_i) -> float:
+        """Temperature drop across the inside film at the inside flux q_i [K]."""
+        htc, C1 = film
+        if q_i <= 0.0:
+            return 0.0
+        drop = q_i / htc
+        return drop if C1 is None else min(drop, (q_i / C1) ** (4.0 / 3.0))
+
+    def film_htc(self, film, q_i, h, z) -> float:
+        """The inside coefficient at the flux q_i [W/m^2/K]; notes the governing method's range."""
+        htc, C1 = film
+        stratified = C1 is not None and q_i > 0.0 and C1 ** (4.0 / 3.0) * q_i ** (-1.0 / 3.0) > htc
+        if stratified:
+            htc = C1 ** (4.0 / 3.0) * q_i ** (-1.0 / 3.0)
+        if self.fixed_htc is not None:
+            return htc
+        x = self.quality(h)
+        if x is not None and x >= 0.0:
+            if not stratified:
+                avail = self.sat.as_dict()
+                avail.update(G=self.G, x=min(x, _X_MAX_CONDENSING), D=self.D_i)
+                for msg in self.condensation.out_of_range(avail):
+                    self.range_notes.setdefault(msg, z)
+            return htc
+        s = self._single(self.temperature(h))
+        method = registry.get(self.single_phase_method)
+        for msg in method.out_of_range({"Re": self.G * self.D_i / s.mu, "Pr": s.Pr}):
+            self.range_notes.setdefault(msg, z)
+        return htc
+
+    def dpdz(self, h) -> float:
+        """Frictional pressure gradient inside a tube at the state h [Pa/m]."""
+        x = self.quality(h)
+        G = self.G
+        if x is not None and x > 0.0:
+            avail = self.sat.as_dict()
+            avail.update(G=G, x=min(x, _X_MAX_CONDENSING), D=self.D_i)
+            opts = {"roughness": self.roughness} if "roughness" in self.friction.options else {}
+            return self.friction(avail, **opts)
+        if x is not None and x == 0.0:
+            rho, mu = self.sat.rho_l, self.sat.mu_l
+        else:
+            s = self._single(self.temperature(h))
+            rho, mu = s.rho, s.mu
+        f = self.colebrook.function(G * self.D_i / mu, relative_roughness=self.roughness / self.D_i)
+        return f * G * G / (2.0 * self.D_i * rho)
+
+    def density(self, h) -> float:
+        """Liquid density at h (for the return losses of a liquid) [kg/m^3]."""
+        return self._single(self.temperature(h)).rho
+
+    def capacity_rate(self, h) -> float:
+        """m cp of the medium [W/K]; infinite while it condenses (the condensate's at
+        complete condensation, so that the step from there is the condensate's)."""
+        x = self.quality(h)
+        if x is not None and x > PAST_EVENT:
+            return math.inf
+        return self.mass_flow * self._single(self.temperature(h)).cp

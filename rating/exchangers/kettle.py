@@ -1,7 +1,7 @@
 """Kettle reboiler (TEMA K shell): a horizontal bundle submerged in a boiling pool.
 
 The heating medium (condensing steam or a hot liquid) flows inside the tubes and is
-marched along the tube-side path pass by pass (``rating.exchangers.kettle_march``);
+marched along the tube-side path pass by pass (``rating.pool_march.PoolMarcher``);
 the boiling fluid is a pool outside the bundle, held by an overflow weir, whose
 vapour leaves through the vapour space at the given pressure. Geometry and input
 meanings: ``rating.case.KettleShell``.
@@ -70,7 +70,7 @@ geometry factor Phi_b, whichever maximum-flux method is chosen),
 factor, level over the bundle, freeboard, overflow and nozzle rho v^2.
 
 Profiles are along the tube-side path with the evaporator's keys (meanings in
-``rating.exchangers.kettle_march``: ``quality`` is the pool's mixed outlet quality
+``rating.pool_march.PoolMarcher``: ``quality`` is the pool's mixed outlet quality
 reached with the duty up to z, ``void_fraction`` is not computed), plus
 ``tube_pass`` (1 = the inlet pass) and, for steam, ``heating_quality``.
 
@@ -96,12 +96,14 @@ from ..correlations.dimensionless import g
 from ..correlations.pool_boiling import (bundle_geometry_factor,
                                          nucleate_fluid_constants)
 from ..errors import PropertyError
-from ..march import Cancelled
+from ..derived import inlet_enthalpy
+from ..march import DUTY_CHECK_LENGTH_FACTOR, Cancelled, ProgressShare, integrate_along_z
+from ..pool_march import PoolMarcher
 from ..properties import make_fluid
 from ..results import MethodUsed, RatingWarning, Result, cancelled, failed, profiles_from_stations
 from ..rules import note, warn
-from .evaporator import DUTY_CHECK_LENGTH_FACTOR, ProgressShare, inlet_enthalpy, integrate_along_z
-from .kettle_march import InTubeHeating, KettleMarch, PoolBand
+from .bundle_pool import PoolBand
+from .heating import InTubeHeating
 
 #: Default increment count along the tube-side path, shared among the passes:
 #: doubling it moves the duty by well under 0.5 % on the samples (see tests).
@@ -321,12 +323,12 @@ def _setup(case) -> _Kettle:
                    phi_b, q_bmax, q1, mixture_factor, nb_title, count_note)
 
 
-def _march(kt: _Kettle, n, *, progress=None, cancel=None) -> KettleMarch:
+def _march(kt: _Kettle, n, *, progress=None, cancel=None) -> PoolMarcher:
     t = kt.tubes
     case = kt.case
     R_wall = (t.outer_diameter * math.log(t.outer_diameter / t.inner_diameter)
               / (2.0 * t.conductivity))
-    return KettleMarch(kt.heating, kt.bands, D_o=t.outer_diameter, D_i=t.inner_diameter,
+    return PoolMarcher(kt.heating, kt.bands, D_o=t.outer_diameter, D_i=t.inner_diameter,
                        R_wall=R_wall, fouling_inner=case.heating.fouling_resistance,
                        fouling_outer=case.boiling.fouling_resistance,
                        tubes_per_pass=t.tubes_per_pass, pass_length=t.length, increments=n,
@@ -344,7 +346,7 @@ _GAUSS = ((0.0694318442, 0.1739274226), (0.3300094782, 0.3260725774),
           (0.6699905218, 0.3260725774), (0.9305681558, 0.1739274226))
 
 
-def _trap_estimate(kt: _Kettle, march: KettleMarch, dh) -> float:
+def _trap_estimate(kt: _Kettle, march: PoolMarcher, dh) -> float:
     """A first steam flow for the trap, from local solves only.
 
     Where steam condenses completely over the path, dx/dz = -q(x) P / (m dh) gives

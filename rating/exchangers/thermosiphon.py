@@ -13,7 +13,7 @@ For a trial circulation W the pressure is followed around the loop:
    inlet nozzle's velocity head lost in the channel (``piping.liquid_line``).
 3. Tube entrance: the static pressure falls by (1 + K_ent) rho v^2/2 (the
    acceleration into the tubes and the entrance loss).
-4. Tubes: the march (``rating.march.Marcher``) from that pressure and the column
+4. Tubes: the march (``rating.boiling_march.Marcher``) from that pressure and the column
    liquid's enthalpy. The liquid arrives subcooled, because the static head has
    raised its saturation temperature; sensible heating, subcooled boiling,
    saturated boiling follow, with friction, acceleration and gravity from the
@@ -71,13 +71,14 @@ from .. import checks
 from ..correlations import registry
 from ..correlations.dimensionless import g
 from ..errors import PropertyError
-from ..march import Cancelled, Marcher, MarchOutcome, solve_counter_current
+from ..boiling_march import Marcher
+from ..march import Cancelled, MarchOutcome, solve_counter_current
 from ..properties import make_fluid
 from ..results import SUMMARY_KEYS, RatingWarning, Result, cancelled, failed, profiles_from_stations
 from ..rules import note, warn
 from . import piping
-from .evaporator import (DEFAULT_INCREMENTS, march_summary, boiling_tube, condensate_film,
-                         heating_side, methods_used, with_substitutes)
+from .tube_boiling import (DEFAULT_INCREMENTS, march_summary, boiling_tube, condensate_film,
+                           heating_side, methods_used, with_substitutes)
 from .heating import SteamHeating
 
 #: Flows in the scan, spaced evenly in log W.
@@ -478,7 +479,7 @@ def _use_local_condensation(loop, chosen: Crossing) -> None:
     """Vertical tubes on steam, as in the evaporator: the local condensate-film law.
 
     The march at the balance found with Nusselt's mean coefficient gives the
-    condensate film along the tubes (``evaporator.condensate_film``); the heating
+    condensate film along the tubes (``tube_boiling.condensate_film``); the heating
     side then uses the local film law on it (``SteamHeating.use_condensate_profile``)
     for the full-increment solution of the operating point.
     """
