@@ -176,6 +176,7 @@ class Marcher(Stepper):
         self._range_bounds: set[str] = set()
         self._sat_dicts: dict[float, dict] = {}
         self._chf_memo = None
+        self._void_memo = (None, None, None)
         self._chf_x_min = self.chf.validity.get("x", (None, None))[0]
         # Katto-Ohno at local quality: its implied boiling length against its data
         self._short_length_floor = self.chf.name == "katto_ohno_local"
@@ -234,13 +235,16 @@ class Marcher(Stepper):
             rho, mu, k, cp = single_props
             htc_l = htc_tube_single_phase(G, t.D_i, mu, k, cp, method=t.single_phase_tube)
             avail = dict(self._sat_inputs(sat), **t.nucleate_inputs)
-            nb, sub, nb_opts = self.nb, self.sub.function, t.nucleate_options
+            # the nucleate method's inputs but q bound once, outside the root on q
+            nb = self.nb.function
+            nb_args = {n: avail[n] for n in self.nb.inputs if n != "q"}
+            nb_args.update(t.nucleate_options)
+            sub = self.sub.function
 
             def T_s(q):
                 if q <= 0.0:
                     return T_b
-                avail["q"] = q
-                return sub(q, T_b, sat.T_sat, htc_l, nb(avail, **nb_opts), G, t.D_i, mu)
+                return sub(q, T_b, sat.T_sat, htc_l, nb(q=q, **nb_args), G, t.D_i, mu)
 
             def films(q):
                 # Liu-Winterton's subcooled form is asymptotic (n = 2) in the fluxes: with
@@ -407,9 +411,14 @@ class Marcher(Stepper):
             return 0.0
         if x >= 1.0:
             return 1.0
+        memo = self._void_memo   # the gradients, the momentum flux and the station ask
+        if memo[0] == x and memo[1] is sat:
+            return memo[2]
         avail = dict(self._sat_inputs(sat))
         avail.update(x=x, G=self.tube.G, D=self.tube.D_i)
-        return min(max(self.void(avail, **self.void_options), 0.0), 1.0)
+        alpha = min(max(self.void(avail, **self.void_options), 0.0), 1.0)
+        self._void_memo = (x, sat, alpha)
+        return alpha
 
     def _flow_pattern(self, z, x, q, sat, alpha):
         if x <= 0.0:

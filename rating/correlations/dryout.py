@@ -223,40 +223,53 @@ def bowring_1972(P, G, D, L, h_lv, *, dh_in=0.0):
 KATTO_OHNO_L_D = (5.0, 880.0)
 
 
+def _katto_ohno_saturated(D, R, W_L):
+    """The saturated-inlet y(L) = q_co / (G h_lv) as a function of the length L [m], for
+    a tube of diameter D with R = rho_v/rho_l and W_L = sigma rho_l / G^2 (W = W_L / L);
+    the powers of R are taken once (``katto_ohno_local`` asks for many lengths)."""
+    R133 = R**0.133
+    c2, c3 = 0.10 * R133, 0.098 * R133
+    c5, c4 = 0.234 * R**0.513, 0.0384 * R**0.6
+    low = R < 0.15
+
+    def y(L):
+        W = W_L / L
+        LD = L / D
+        C = 0.25 if LD < 50.0 else (0.34 if LD > 150.0 else 0.25 + 0.0009 * (LD - 50.0))
+        q1 = C * W**0.043 / LD
+        div = 1.0 + 0.0031 * LD
+        if low:
+            q2 = c2 * W ** (1.0 / 3.0) / div
+            if q1 < q2:
+                return q1
+            q3 = c3 * W**0.433 * LD**0.27 / div
+            return q2 if q2 < q3 else q3
+        q5 = c5 * W**0.433 * LD**0.27 / div
+        if q1 < q5:
+            return q1
+        q4 = c4 * W**0.173 / (1.0 + 0.28 * W**0.233 * LD)
+        return q5 if q5 > q4 else q4
+    return y
+
+
 def _katto_ohno(G, D, L, rho_l, rho_v, sigma, h_lv):
     """Saturated-inlet q_co [W/m^2] and the inlet-subcooling factor K."""
     R = rho_v / rho_l
-    W = sigma * rho_l / (G * G * L)          # sigma rho_l / (G^2 L)
+    W_L = sigma * rho_l / (G * G)
+    W = W_L / L                              # sigma rho_l / (G^2 L)
     LD = L / D
     C = 0.25 if LD < 50.0 else (0.34 if LD > 150.0 else 0.25 + 0.0009 * (LD - 50.0))
     R133 = R**0.133
-    W433 = W**0.433
-    W043 = W**0.043
-    q1 = C * W043 / LD
-    q2 = 0.10 * R133 * W ** (1.0 / 3.0) / (1.0 + 0.0031 * LD)
-    K1 = 1.043 / (4.0 * C * W043)
+    K1 = 1.043 / (4.0 * C * W**0.043)
     K2 = (5.0 / 6.0) * (0.0124 + 1.0 / LD) / (R133 * W ** (1.0 / 3.0))
     if R < 0.15:
-        if q1 < q2:
-            q = q1
-        else:
-            q3 = 0.098 * R133 * W433 * LD**0.27 / (1.0 + 0.0031 * LD)
-            q = q2 if q2 < q3 else q3
         K = max(K1, K2)
+    elif K1 > K2:
+        K = K1
     else:
-        q5 = 0.234 * R**0.513 * W433 * LD**0.27 / (1.0 + 0.0031 * LD)
-        if q1 < q5:
-            q = q1
-        else:
-            W233 = W**0.233
-            q4 = 0.0384 * R**0.6 * W**0.173 / (1.0 + 0.28 * W233 * LD)
-            q = q5 if q5 > q4 else q4
-        if K1 > K2:
-            K = K1
-        else:
-            K3 = 1.12 * (1.52 * W**0.233 + 1.0 / LD) / (R**0.6 * W**0.173)
-            K = min(K2, K3)
-    return q * G * h_lv, K
+        K3 = 1.12 * (1.52 * W**0.233 + 1.0 / LD) / (R**0.6 * W**0.173)
+        K = min(K2, K3)
+    return _katto_ohno_saturated(D, R, W_L)(L) * G * h_lv, K
 
 
 @register(
@@ -404,9 +417,10 @@ def katto_ohno_local(G, x, D, rho_l, rho_v, sigma, h_lv):
         return 0.0
     scale = G * h_lv
     LxD = x * D / 4.0  # L = LxD / u with u = q / (G h_lv)
+    y = _katto_ohno_saturated(D, rho_v / rho_l, sigma * rho_l / (G * G))
 
     def excess(u):  # x_exit(L(u)) / x - 1
-        return _katto_ohno(G, D, LxD / u, rho_l, rho_v, sigma, h_lv)[0] / (scale * u) - 1.0
+        return y(LxD / u) / u - 1.0
 
     # Upper bracket. For R < 0.15 every branch is at most q_co2 without its
     # (1 + 0.0031 L/D) divisor, whose own root u0 therefore bounds the root
@@ -416,18 +430,27 @@ def katto_ohno_local(G, x, D, rho_l, rho_v, sigma, h_lv):
         u_hi = (0.1 * R**0.133) ** 1.5 * math.sqrt(4.0 * sigma * rho_l / (G * G * x * D))
     else:
         u_hi = 1.0
-    while excess(u_hi) >= 0.0:
+    f_hi = excess(u_hi)
+    while f_hi >= 0.0:
         u_hi *= 4.0
         if u_hi > 1e12:  # cannot happen: q_KO/q -> 0 as q -> inf
             raise ArithmeticError("katto_ohno_local: no upper bracket")
+        f_hi = excess(u_hi)
     # Step down to the largest root, in steps small enough not to jump over
     # the narrow window near Katto-Ohno's largest exit quality, and no
     # further than boiling lengths of _LD_MAX diameters (L/D = x / (4 u)).
     u_min = x / (4.0 * _LD_MAX)
     u_lo = u_hi / 1.25
-    while excess(u_lo) < 0.0:
+    f_lo = excess(u_lo)
+    while f_lo < 0.0:
         if u_lo < u_min:         # x above the largest exit quality Katto-Ohno allows
             return 0.0
-        u_hi = u_lo
+        u_hi, f_hi = u_lo, f_lo
         u_lo /= 1.25
-    return scale * brentq(excess, u_lo, u_hi, xtol=1e-15, rtol=1e-10)
+        f_lo = excess(u_lo)
+    ends = {u_lo: f_lo, u_hi: f_hi}   # Brent starts from the bracket's ends: known here
+
+    def known_or_excess(u):
+        f = ends.pop(u, None)
+        return excess(u) if f is None else f
+    return scale * brentq(known_or_excess, u_lo, u_hi, xtol=1e-15, rtol=1e-10)
