@@ -37,6 +37,7 @@ import difflib
 import functools
 import json
 import math
+import operator
 import re
 import threading
 from dataclasses import dataclass, fields
@@ -109,7 +110,7 @@ class SaturationSet:
 
     def as_dict(self) -> dict:
         """Return the properties as a dict keyed by the attribute names (registry dispatch)."""
-        return {name: getattr(self, name) for name in _SAT_FIELDS}
+        return dict(zip(_SAT_FIELDS, _sat_values(self)))
 
     def dp_sat(self, dT: float) -> float:
         """Estimate p_sat(T_sat + dT) - P without a property call.
@@ -142,6 +143,7 @@ class SaturationSet:
 
 
 _SAT_FIELDS = tuple(f.name for f in fields(SaturationSet))
+_sat_values = operator.attrgetter(*_SAT_FIELDS)   # every field at once (as_dict)
 
 
 @dataclass(frozen=True, slots=True)
