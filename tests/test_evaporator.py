@@ -240,3 +240,29 @@ def test_rating_in_worker_threads_gives_the_same_results(rated):
         results = list(pool.map(rating.rate, cases))
     for case, r in zip(cases, results):
         assert r.summary == rated[case.name][1].summary, case.name
+
+
+def test_shell_side_coefficient_between_its_nodes_is_within_1e_4_of_bell_delaware():
+    # The liquid heating medium's shell-side coefficient is interpolated between nodes
+    # HTC_GRID apart (speed, issue 10); against Bell-Delaware evaluated at the temperature
+    # itself (the same method on the property library's properties) over 40 K below the
+    # inlet of every liquid-heated sample.
+    from rating.exchangers.tube_boiling import heating_side
+
+    project_files = sorted((Path(__file__).resolve().parent.parent / "samples").glob("*.ebullio"))
+    checked = 0
+    for path in project_files:
+        for case in rating.load_project(path).cases:
+            if case.type == "kettle" or case.heating.kind == "steam":
+                continue
+            side, _ = heating_side(case)
+            T_in = case.heating.inlet_temperature
+            for i in range(81):
+                T = T_in - 40.0 + 0.5 * i + 0.137     # between nodes
+                try:
+                    exact = side.shell_result(T).htc
+                except rating.PropertyError:          # below the medium's data
+                    continue
+                assert side._htc(T) == pytest.approx(exact, rel=1e-4), (case.name, T)
+                checked += 1
+    assert checked > 200
