@@ -176,7 +176,7 @@ def run_by_button(qtbot, panel):
     qtbot.waitUntil(lambda: not panel.busy(), timeout=TIMEOUT_MS)
 
 
-def test_fit_in_the_tab_recovers_a_known_fouling(qtbot, chiller, plant):
+def test_fit_in_the_tab_recovers_a_known_fouling(qtbot, chiller, plant, tmp_path):
     """The chilled-water outlet temperature of a rating made with R_f = 4e-4 m^2K/W is typed
     in °C (T[°C] = T[K] - 273.15, by definition) with a 0.1 K tolerance; the boiling-side
     fouling is ticked by default with the bounds 0 to 0.002 m^2K/W. test_studies.py
@@ -213,6 +213,28 @@ def test_fit_in_the_tab_recovers_a_known_fouling(qtbot, chiller, plant):
     assert fitted_line and fitted_line[0].get_xdata()[0] == pytest.approx(TRUE_FOULING, abs=1e-6)
     (dot,) = [ln for ln in right.get_lines() if ln.get_marker() == "o"]
     assert abs(dot.get_xdata()[0]) < 1.0
+    # the export: SI, the fitted value at full precision
+    target = tmp_path / "fit.csv"
+    assert panel.export_csv(target)
+    rows = list(csv.reader(target.open(encoding="utf-8")))
+    assert "qualified engineer" in rows[0][0] and rows[1][:2] == ["path", "value"]
+    assert rows[2][0] == "boiling.fouling_resistance"
+    assert float(rows[2][1]) == pytest.approx(panel.study.values["boiling.fouling_resistance"])
+
+
+def test_fit_in_the_tab_says_when_the_fit_is_poor(qtbot, chiller, plant):
+    """Chilled water measured 3 K warmer than any fouling up to 0.002 m^2K/W gives (as in
+    test_studies.py): the fit ends at the bound and the tab says the fit is poor."""
+    panel = fit_panel(qtbot, chiller)
+    value, tolerance = panel.fit_setup.measure("heating_outlet_temperature_K")
+    type_into(qtbot, value, repr(plant.summary["heating_outlet_temperature_K"] - 273.15 + 3.0))
+    type_into(qtbot, tolerance, "0.1")
+    run_by_button(qtbot, panel)
+    assert panel.study.status == "poor"
+    text = panel.fit_verdict.text()
+    assert text.startswith("Poor fit: ") and "upper bound" in text and "• poor fit" in text
+    last = panel.table.columnCount() - 1
+    assert panel.table.item(1, last).text() == "missed"
 
 
 def test_fit_in_the_tab_says_when_the_fouling_is_not_identifiable(qtbot, chiller, plant):
