@@ -8,6 +8,7 @@ the window's units, converts them to SI, and shows what comes back.
 from __future__ import annotations
 
 import math
+import textwrap
 
 import numpy as np
 from matplotlib.ticker import MaxNLocator
@@ -255,26 +256,70 @@ def _small(text):
 
 # --- the answer ---------------------------------------------------------------------------
 
-def verdict(fit, system: str) -> str:
-    """The answer in words: each fitted value with its uncertainty, then every warning."""
+def verdict(fit, parameters, system: str) -> str:
+    """The answer in words: each fitted value with its uncertainty, then every finding
+    (``parameters``: the ``Parameter``s the fit was given, for their bounds)."""
     if fit.status in ("failed", "cancelled"):
         return f"{VERDICTS[fit.status]}: {fit.message}"
     parts = []
     for p, v in fit.values.items():
         f = catalogue.input_field(p)
-        unit = units.unit_label(f.quantity, system)
+        unit = units.unit_label(f.quantity, system).replace("–", "")   # no dash for "no unit"
         u = fit.uncertainty[p]
         shown = units.to_display(v, f.quantity, system)
         if u is None:
-            parts.append(f"{f.label} = {units.format_number(shown)} {unit} "
-                         "(not determined by these measurements)")
+            parts.append(f"{f.label} = {units.format_number(shown)} {unit}".rstrip()
+                         + " (not determined by these measurements)")
         else:
             value, spread = value_and_uncertainty(shown, _difference(u, f.quantity, system))
-            parts.append(f"{f.label} = {value} ± {spread} {unit}")
+            parts.append(f"{f.label} = {value} ± {spread} {unit}".rstrip())
     head = f"{VERDICTS[fit.status]}: " + "; ".join(parts)
     if fit.status == "fitted":
         head += " (± one standard deviation, from the tolerances)"
-    return "\n".join([head] + [f"• {w}" for w in fit.warnings])
+    return "\n".join([head] + [f"• {w}" for w in findings(fit, parameters, system)])
+
+
+def findings(fit, parameters, system: str) -> list[str]:
+    """The engine's findings on a fit in the catalogue's words and the window's units
+    (its own messages name paths and SI values, for the command line)."""
+    def shown(value, quantity):
+        return f"{units.format_number(units.to_display(value, quantity, system))} " \
+               f"{units.unit_label(quantity, system)}".rstrip(" –")
+
+    out = []
+    loose = [p for p in fit.values if not fit.identifiable[p]]
+    label = {p: catalogue.input_field(p).label for p in fit.values}
+    if len(loose) > 1:
+        out.append(f"{' and '.join(label[p] for p in loose)}: these measurements do not fix "
+                   "them (at most a combination of them); measure another result or fit one "
+                   "of them")
+    for p in loose if len(loose) == 1 else ():
+        q = catalogue.input_field(p).quantity
+        bounds = next(b for b in parameters if b.path == p)
+        out.append(f"{label[p]} is not identifiable: over its whole range, "
+                   f"{shown(bounds.lower, q)} to {shown(bounds.upper, q)}, the measured results "
+                   "change by less than about twice their tolerances")
+    for b in parameters:
+        v = fit.values.get(b.path)
+        if v is None or b.path in loose:
+            continue
+        near = 1e-6 * (b.upper - b.lower)
+        if v - b.lower <= near or b.upper - v <= near:
+            side = "lower" if v - b.lower <= near else "upper"
+            out.append(f"{label[b.path]} ended at its {side} bound "
+                       f"({shown(v, catalogue.input_field(b.path).quantity)}): the data ask "
+                       "for a value beyond the range given; its uncertainty is one-sided")
+    missed = [(k, m, f, r) for k, m, f, r in fit.residuals if abs(r) > MISSED]
+    for key, measured, model, r in missed:
+        q = catalogue.SUMMARY[key].quantity
+        out.append(f"poor fit: {catalogue.SUMMARY[key].label.lower()} is {shown(model, q)} "
+                   f"in the rating against the measured {shown(measured, q)} "
+                   f"({r:+.1f} tolerances)")
+    dof = len(fit.residuals) - len(fit.values)
+    if fit.status == "poor" and not missed and fit.chi_square is not None:
+        out.append(f"poor fit: the misfit (chi-square {fit.chi_square:.3g} on {dof} degrees "
+                   "of freedom) is larger than the tolerances explain")
+    return out
 
 
 def value_and_uncertainty(value: float, u: float) -> tuple[str, str]:
@@ -353,7 +398,8 @@ def draw(axes, fit, system: str) -> str:
         y = _display([t[0][second] for t in trials], sq, system)
         left.plot(x, y, ".", color="#999999", ms=4)
         f2 = catalogue.input_field(second)
-        left.set_ylabel(f"{f2.label} [{units.unit_label(sq, system)}]", fontsize=FONT)
+        left.set_ylabel(textwrap.fill(f"{f2.label} [{units.unit_label(sq, system)}]", 24),
+                        fontsize=FONT)
     v = units.to_display(fit.values[first], fq, system)
     u = fit.uncertainty.get(first)
     if fit.status not in ("failed", "cancelled"):

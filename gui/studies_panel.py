@@ -148,6 +148,7 @@ class StudiesPanel(QWidget):
         self._thread = None
         self.study, self.kind, self.system = None, None, "SI"
         self._tolerances = {}          # the fit's tolerance of each measured key (SI)
+        self._parameters = []          # and the inputs it fitted, with their bounds
         self._filled_for = None
         self.signals = _Signals()
         self.signals.progress.connect(self._on_progress)
@@ -387,6 +388,7 @@ class StudiesPanel(QWidget):
         if kind == "fit":
             measured, fitted = self.fit_setup.measurements(), self.fit_setup.parameters()
             self._tolerances = {m.key: m.tolerance for m in measured}
+            self._parameters = fitted
 
             def job(executor, cancel, progress):
                 return studies.fit(case, measured, fitted, executor=executor, cancel=cancel,
@@ -434,7 +436,8 @@ class StudiesPanel(QWidget):
                                "unidentifiable": "the measurements do not fix every input",
                                }.get(self.study.status, ""))
             self.split.setSizes([400, 180])
-            self.fit_verdict.setText(studies_fit.verdict(self.study, self.system))
+            self.fit_verdict.setText(studies_fit.verdict(self.study, self._parameters,
+                                                         self.system))
             colour = {"fitted": "#1d6b3a"}.get(self.study.status, "#a03800")
             self.fit_verdict.setStyleSheet(f"color: {colour}; font-weight: bold")
             self.export_button.setEnabled(self.study.status not in ("failed", "cancelled"))

@@ -232,7 +232,10 @@ def test_fit_in_the_tab_says_when_the_fit_is_poor(qtbot, chiller, plant):
     run_by_button(qtbot, panel)
     assert panel.study.status == "poor"
     text = panel.fit_verdict.text()
-    assert text.startswith("Poor fit: ") and "upper bound" in text and "• poor fit" in text
+    assert text.startswith("Poor fit: ") and "upper bound (0.002000 m²·K/W)" in text
+    # the catalogue's words and the window's units, not the engine's paths and kelvins
+    assert "• poor fit: heating medium outlet temperature is " in text and " °C " in text
+    assert "boiling.fouling_resistance" not in text and "_K" not in text
     last = panel.table.columnCount() - 1
     assert panel.table.item(1, last).text() == "missed"
 
@@ -250,7 +253,8 @@ def test_fit_in_the_tab_says_when_the_fouling_is_not_identifiable(qtbot, chiller
     assert panel.fit_verdict.text().startswith("Not identifiable: Fouling resistance, boiling "
                                                "side = ")
     assert "not determined" in panel.fit_verdict.text()
-    assert "not identifiable" in panel.fit_verdict.text().split("\n", 1)[1]
+    assert "• Fouling resistance, boiling side is not identifiable: over its whole range, " \
+           "0 m²·K/W to 0.002000 m²·K/W," in panel.fit_verdict.text()
     assert panel.table.item(0, 2).text() == "not determined"
     assert panel.table.item(0, panel.table.columnCount() - 1).text() == "not identifiable"
 
