@@ -10,9 +10,10 @@ from __future__ import annotations
 
 import os
 import sys
+import threading
 from pathlib import Path
 
-from PySide6.QtCore import QByteArray, QSize, Qt, QTimer
+from PySide6.QtCore import QByteArray, QObject, QSize, Qt, QTimer, Signal
 from PySide6.QtGui import QAction, QActionGroup, QGuiApplication, QKeySequence
 from PySide6.QtWidgets import (QApplication, QComboBox, QDockWidget, QFileDialog, QFrame,
                                QHBoxLayout, QInputDialog, QLabel, QListWidget, QListWidgetItem,
@@ -136,6 +137,11 @@ class MainWindow(QMainWindow):
         self.forms: dict[str, CaseForm] = {}
         self._shown = None
         self._typing = False
+        self._warming = None
+        self._imported = _Imported(self)
+        self._imported.plotting.connect(self.ensure_plots)
+        self._imported.ready.connect(self._imports_done)
+        self._ready, self._to_open = False, None
         self._build()
         self._actions()
         self._wire()
@@ -493,8 +499,10 @@ class MainWindow(QMainWindow):
 
     def showEvent(self, event):
         super().showEvent(event)
-
-        QTimer.singleShot(150, self.ensure_plots)     # after the first paint, not before it
+        if self._warming is None:       # after the first paint, not before it
+            self._warming = threading.Thread(target=warm_up, args=(self._imported,),
+                                             name="ebullio-warm-up", daemon=True)
+            QTimer.singleShot(0, self._warming.start)
 
     # --- the case list ---------------------------------------------------------------------
     def _show_cases(self):
@@ -829,6 +837,22 @@ class MainWindow(QMainWindow):
         if path:
             self.open_path(path)
 
+    def _imports_done(self):
+        self._ready = True
+        if self._to_open is not None:
+            path, self._to_open = self._to_open, None
+            self.statusBar().clearMessage()
+            self.open_path(path)
+
+    def open_when_ready(self, path):
+        """Open a project once the background imports are done (the file given at start):
+        the window stays live meanwhile instead of waiting for them."""
+        if self._ready:
+            self.open_path(path)
+        else:
+            self._to_open = path
+            self.statusBar().showMessage(f"opening {Path(path).name}…")
+
     def open_path(self, path) -> bool:
         """Open a project file; a file that fails says why and changes nothing."""
         from rating.errors import RatingError
@@ -1026,6 +1050,33 @@ class MainWindow(QMainWindow):
         self._drop_autosave()
         files.settings().setValue("geometry", self.saveGeometry())
         event.accept()
+
+
+class _Imported(QObject):
+    plotting = Signal()            # matplotlib is imported: the plots can be built
+    ready = Signal()               # everything is imported: a project opens without a wait
+
+
+def warm_up(imported=None):
+    """Import what opening a project, its ratings and its plots need, in a background
+    thread (the slow part of starting): the display units (pint), the property library,
+    the engine, matplotlib. A busy thread hands the interpreter lock over every
+    millisecond, so the window keeps answering meanwhile."""
+    def say(signal):
+        if imported is not None:
+            try:
+                getattr(imported, signal).emit()
+            except RuntimeError:    # the window closed meanwhile
+                pass
+    sys.setswitchinterval(0.001)
+    units.to_display(1.0, "length", "US")
+    import CoolProp.CoolProp  # noqa: F401
+    import rating.exchangers  # noqa: F401
+    import rating.properties  # noqa: F401
+    import matplotlib.backends.backend_agg  # noqa: F401
+    import matplotlib.figure  # noqa: F401
+    say("plotting")
+    say("ready")
 
 
 def files_load(path):
