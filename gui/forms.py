@@ -131,6 +131,7 @@ class Section(QWidget):
         self.grid.setContentsMargins(14, 0, 2, 0)
         self.grid.setHorizontalSpacing(6)
         self.grid.setVerticalSpacing(2)
+        self.grid.setColumnStretch(0, 1)      # labels widen with the form: fewer wrapped lines
         self.grid.setColumnStretch(1, 1)
         lay.addWidget(self.button)
         lay.addWidget(line)
@@ -176,8 +177,11 @@ class Row:
         self.label.setBuddy(self.editor)
         g = section.grid
         g.addWidget(self.label, 2 * r, 0)
-        if kind in ("text", "fluid") and not field.choices:     # names: the unit column too
+        self.spans = kind in ("text", "fluid") and not field.choices
+        if self.spans:                  # names: the unit's column too
             g.addWidget(self.editor, 2 * r, 1, 1, 2)
+            self.unit.setParent(section.body)   # never shown; a label without a parent
+            self.unit.hide()                    # would open as a window of its own
         else:
             g.addWidget(self.editor, 2 * r, 1)
             g.addWidget(self.unit, 2 * r, 2)
@@ -185,7 +189,7 @@ class Row:
         self._choices: list[str] = []
 
     def widgets(self):
-        return (self.label, self.editor, self.unit)
+        return (self.label, self.editor) + (() if self.spans else (self.unit,))
 
     def set_visible(self, visible: bool):
         for w in self.widgets():

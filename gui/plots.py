@@ -64,6 +64,7 @@ ALONG_TUBE = (
 
 FONT = 8
 DPI = 100            # figure units: one logical pixel is 1/DPI inch
+BASE_POINTS = 10.0   # a system font larger than this enlarges the plots in proportion
 CAUTION_SHORT = ("Ebullio: engineering estimates, to be checked by a qualified engineer "
                  "under local codes and licensed practice")
 
@@ -137,7 +138,8 @@ def style_axes(ax, title):
 
 
 def logical_size(figure) -> tuple[float, float]:
-    """The figure's size in logical pixels (a high-density screen draws more dots)."""
+    """The figure's size in layout pixels (a high-density screen draws more dots, a larger
+    system font makes each layout pixel larger)."""
     w, h = figure.get_size_inches()
     return w * DPI, h * DPI
 
@@ -199,7 +201,8 @@ class _Legend:
         if hi > lo:
             ax.set_ylim(lo, hi + (hi - lo) * band / (1 - band))
         self.legend = ax.legend(handles=shown, loc="upper left", ncols=cols, fontsize=self.SIZE,
-                                frameon=False, handlelength=1.6, handletextpad=0.4,
+                                frameon=True, framealpha=0.85, edgecolor="none",
+                                facecolor="white", handlelength=1.6, handletextpad=0.4,
                                 columnspacing=0.8, borderaxespad=0.2, borderpad=0.1,
                                 labelspacing=0.3)
 
@@ -460,9 +463,10 @@ class _Draw(QRunnable):
         try:
             with s.lock:
                 if self.size is not None:
-                    w, h, ratio = self.size
-                    s.figure.set_dpi(DPI * ratio)
-                    s.figure.set_size_inches(w / DPI, h / DPI)
+                    # a larger system font enlarges the plots' text, lines and margins too
+                    w, h, ratio, scale = self.size
+                    s.figure.set_dpi(DPI * ratio * scale)
+                    s.figure.set_size_inches(w / (DPI * scale), h / (DPI * scale))
                     s.plot.relayout()
                 for name, args, kwargs in self.steps:
                     getattr(s.plot, name)(*args, **kwargs)
@@ -564,7 +568,8 @@ class PlotView(QWidget):
         if self._busy or not pic.isVisible():
             return                      # a hidden panel is drawn when it is shown
         ratio = pic.devicePixelRatioF()
-        size = (max(pic.width(), 50), max(pic.height(), 50), ratio)
+        scale = max(1.0, pic.font().pointSizeF() / BASE_POINTS)
+        size = (max(pic.width(), 50), max(pic.height(), 50), ratio, scale)
         new_size = size if size != self._size else None
         if not self._pending and new_size is None:
             return

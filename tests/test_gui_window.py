@@ -317,3 +317,18 @@ def test_every_menu_command_has_a_key_or_a_mnemonic(window):
             if a.isSeparator() or not a.text() or not a.isEnabled():
                 continue
             assert not a.shortcut().isEmpty() or "&" in a.text(), a.text()
+
+
+def test_no_widget_opens_as_a_window_of_its_own(window, qtbot):
+    """Every widget of the datasheet and the answer lives inside the main window: a label
+    left out of every layout would open as a small window at the screen's corner (seen under
+    Xvfb: three unit labels of text fields covered the File menu)."""
+    from PySide6.QtWidgets import QApplication
+
+    w = window
+    open_rated(qtbot, w)
+    for system in ("US", "SI"):
+        w.set_system(system)
+    plotted(qtbot, w)
+    stray = [t for t in QApplication.topLevelWidgets() if t.isVisible() and t is not w]
+    assert stray == [], [(type(t).__name__, t.objectName(), t.geometry()) for t in stray]
