@@ -55,11 +55,10 @@ def rate_case(case, *, increments=None, progress=None, cancel=None):
     if case.type not in TYPES:
         return failed(case, f"exchanger type {case.type!r} is not rated by this version")
     try:
-        module = importlib.import_module(f".{case.type}", __package__)
-    except ModuleNotFoundError:
-        return failed(case, f"exchanger type {case.type!r} is not rated by this version")
-    rater = getattr(module, f"rate_{case.type}")
-    try:
+        # inside the guard: a fault in an exchanger module's own imports is a fault of
+        # Ebullio, reported as such, not as a type this version does not rate
+        rater = getattr(importlib.import_module(f".{case.type}", __package__),
+                        f"rate_{case.type}")
         return rater(case, increments=increments, progress=progress, cancel=cancel)
     except PropertyError as exc:
         return failed(case, str(exc))
