@@ -9,6 +9,7 @@ from __future__ import annotations
 from rating import catalogue
 
 from . import units
+from .warning_text import in_units
 
 
 def amount(value, quantity, system, digits=4) -> str:
@@ -31,7 +32,7 @@ def verdict(result, system: str, *, message: str = "") -> str:
     answer line and the report's verdict are this same sentence."""
     if result is None or result.status in ("failed", "cancelled"):
         why = message or (result.message if result is not None else "")
-        return f"Not rated: {why}" if why else "Not rated yet."
+        return f"Not rated: {in_units(why, system)}" if why else "Not rated yet."
     s = result.summary
     parts = [_duty_answer(result, system)]
     exit_x = s.get("exit_quality")

@@ -16,12 +16,26 @@ from . import units
 
 def _display(system: str):
     def fmt(value, quantity, spec):
+        if getattr(value, "template", None):      # a solver's text inside the message
+            return rules.render(value.template, dict(value.values), fmt)
         if quantity in ("text", "dimensionless", "fraction", "count", "percent") \
                 or isinstance(value, str) or value is None:
             return rules.si_text(value, quantity, spec) if value is not None else "not computed"
         label = units.unit_label(quantity, system)
-        return f"{format(units.to_display(value, quantity, system), spec or '.4g')} {label}"
+        shown = units.to_display(value, quantity, system)
+        spec = spec or ".4g"
+        if spec.endswith("g"):   # significant figures, as the tables show them: no exponent
+            return f"{units.format_number(shown, int(spec[1:-1] or 4))} {label}"
+        return f"{format(shown, spec)} {label}"
     return fmt
+
+
+def in_units(text, system: str) -> str:
+    """A solver's message (``rating.rules.Said``, e.g. why a rating failed) in the units
+    of ``system``; a plain text as it is."""
+    if getattr(text, "template", None):
+        return rules.render(text.template, dict(text.values), _display(system))
+    return str(text)
 
 
 def warning_text(warning, system: str) -> str:

@@ -38,6 +38,7 @@ from .correlations.flow_boiling import station_parts
 from .correlations.flow_pattern import wojtan_dryout_qualities
 from .correlations.single_phase import htc_tube_single_phase
 from .errors import OutOfRangeError, PropertyError
+from .rules import said
 from .march import (NTU_PER_STEP, PAST_EVENT, QUALITY_PER_STEP, SMALLEST_STEP, WETTED_REGIMES,
                     HeatingSide, MarchOutcome, Station, Stepper, flux_root)
 
@@ -574,9 +575,9 @@ class Marcher(Stepper):
         except (ValueError, ZeroDivisionError, OverflowError, RuntimeError) as exc:
             return self._outcome(stations, "failed", f"no solution at z = {self.z:.3f} m: {exc}")
         if stop_duty is not None:
-            return self._outcome(stations, "failed",
-                                 f"the required duty is not reached within {z_end:.3g} m of tube "
-                                 f"(reached {duty:.4g} W)")
+            return self._outcome(stations, "failed", said(
+                "the required duty is not reached within {z_end:length:.3g} of tube "
+                "(reached {duty:power:.4g})", z_end=z_end, duty=duty))
         return self._outcome(stations)
 
     def _stable_step(self, local: _Local, bulk, hs, dz):

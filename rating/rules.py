@@ -437,6 +437,29 @@ def quantities(template: str) -> dict:
             for _, name, spec, _ in string.Formatter().parse(template) if name}
 
 
+class Said(str):
+    """A solver's message that keeps its template and SI values (as ``RangeNote`` does for
+    a crossed validity bound): equal to, and used as, its SI text; a warning made from it
+    by ``note`` shows its numbers in the reader's units."""
+
+    template: str
+    values: tuple
+
+    def __reduce__(self):   # outcomes cross process boundaries (studies)
+        return (_said, (self.template, self.values))
+
+
+def said(template: str, **values) -> Said:
+    """A message from ``template`` (``{name:quantity:format}``) and SI ``values``."""
+    return _said(template, tuple(values.items()))
+
+
+def _said(template: str, values: tuple) -> Said:
+    text = Said(render(template, dict(values)))
+    text.template, text.values = template, values
+    return text
+
+
 def warn(code: str, severity: str | None = None, z: float | None = None, **values) -> RatingWarning:
     """The warning of rule ``code`` with its values (SI) and position ``z`` [m]."""
     rule = RULES[code]

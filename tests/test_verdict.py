@@ -41,3 +41,22 @@ def test_without_a_required_duty_the_verdict_gives_the_duty_and_the_first_warnin
 def test_a_failed_rating_says_why():
     r = Result("E-1", "evaporator", "failed", "the loop does not circulate")
     assert verdict(r, "SI") == "Not rated: the loop does not circulate"
+
+
+def test_why_a_rating_failed_reads_in_the_window_units():
+    # The stripper reboiler's loop with its column level cut to 0.3 m does not circulate;
+    # the engine's reason carries its numbers, so the US window reads psi and ft, not Pa, m.
+    import dataclasses
+    from pathlib import Path
+
+    from rating import load_project, rate
+
+    case = load_project(Path(__file__).parent.parent / "samples" / "stripper-reboiler.ebullio").cases[0]
+    low = dataclasses.replace(case, thermosiphon=dataclasses.replace(case.thermosiphon,
+                                                                        liquid_level=0.3))
+    r = rate(low)
+    assert r.status == "failed" and "will not circulate" in r.message
+    assert " Pa " in r.message and " m " in r.message          # the engine's SI words
+    us = verdict(r, "US")
+    assert us.startswith("Not rated: will not circulate") and " psi " in us and " ft " in us
+    assert not re.search(r"\d Pa\b|\d m\b|kg/s", us)

@@ -21,7 +21,8 @@ from ..march import (DUTY_CHECK_LENGTH_FACTOR, Cancelled, MarchOutcome, Progress
                      solve_counter_current)
 from ..errors import PropertyError
 from ..properties import make_fluid
-from ..results import Result, RatingWarning, cancelled, failed, profiles_from_stations
+from ..results import Result, cancelled, failed, profiles_from_stations
+from ..rules import note, warn
 from .heating import SteamHeating
 from .tube_boiling import (DEFAULT_INCREMENTS, boiling_tube, condensate_film, heating_side,
                            march_summary, methods_used, with_substitutes)
@@ -95,12 +96,9 @@ def rate_evaporator(case, *, increments=None, progress=None, cancel=None) -> Res
     summary = march_summary(case, tube, heating, hs_inlet, primary, outcome, check)
     warnings = checks.evaluate(case, primary, fluid=fluid, service="evaporator")
     if check is not None and check.status != "ok":
-        warnings.append(RatingWarning("duty-not-reached", "error", check.message, None))
+        warnings.append(note("duty-not-reached", check.message))
     if case.tubes.passes > 1 and hs_inlet is not None:
-        warnings.append(RatingWarning(
-            "multipass-approximation", "info",
-            f"{case.tubes.passes} tube passes against a single-phase heating medium are "
-            "treated as one pure counter- or co-current path (no F-factor)", None))
+        warnings.append(warn("multipass-approximation", passes=case.tubes.passes))
     status = "warnings" if any(w.severity in ("warning", "error") for w in warnings) else "ok"
     message = "rated" if not notes else "; ".join(notes)
     return Result(case.name, case.type, status, message, summary,

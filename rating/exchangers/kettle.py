@@ -101,7 +101,7 @@ from ..march import DUTY_CHECK_LENGTH_FACTOR, Cancelled, ProgressShare, integrat
 from ..pool_march import PoolMarcher
 from ..properties import make_fluid
 from ..results import MethodUsed, RatingWarning, Result, cancelled, failed, profiles_from_stations
-from ..rules import note, warn
+from ..rules import note, said, warn
 from .bundle_pool import PoolBand
 from .heating import InTubeHeating
 
@@ -506,7 +506,7 @@ def rate_kettle(case, *, increments=None, progress=None, cancel=None) -> Result:
     if (summary["exit_quality"] or 0.0) >= 1.0:
         return _feed_boiled_dry(case, summary, warnings, methods, primary)
     if check is not None and check[1].status != "ok":
-        warnings.append(RatingWarning("duty-not-reached", "error", check[1].message, None))
+        warnings.append(note("duty-not-reached", check[1].message))
     status = "warnings" if any(w.severity in ("warning", "error") for w in warnings) else "ok"
     message = "rated" if not notes else "; ".join(notes)
     return Result(case.name, case.type, status, message, summary,
@@ -564,9 +564,10 @@ def _area_for_duty(case, kt, n, cancel, prog):
                 L_hi = max(L, 0.5 * L_hi)
         if seen[L_hi][1].stations[-1].duty < Q:
             reached = seen[L_hi][1].stations[-1].duty
-            return (kt, MarchOutcome([], "failed", f"the required duty {Q:.4g} W is not reached "
-                                     f"with tubes {L_hi / L:.3g} times as long "
-                                     f"(reached {reached:.4g} W)"), None)
+            return (kt, MarchOutcome([], "failed", said(
+                "the required duty {Q:power:.4g} is not reached with tubes {times:dimensionless:.3g} "
+                "times as long (reached {reached:power:.4g})", Q=Q, times=L_hi / L,
+                reached=reached)), None)
         L_req = brentq(resid, 1e-4 * L, L_hi, xtol=1e-7 * L, rtol=1e-10, maxiter=100)
     except _Failed as exc:
         return exc.result

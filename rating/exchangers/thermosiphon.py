@@ -75,7 +75,7 @@ from ..boiling_march import Marcher
 from ..march import Cancelled, MarchOutcome, solve_counter_current
 from ..properties import make_fluid
 from ..results import SUMMARY_KEYS, RatingWarning, Result, cancelled, failed, profiles_from_stations
-from ..rules import note, warn
+from ..rules import note, said, warn
 from . import piping
 from .tube_boiling import (DEFAULT_INCREMENTS, march_summary, boiling_tube, condensate_film,
                            heating_side, methods_used, with_substitutes)
@@ -658,13 +658,14 @@ def _will_not_circulate(case, loop, scan, crossings, curve, methods, n) -> Resul
         # The head would do somewhere, yet no balance there is both wet and stable.
         surplus = max(wet, key=lambda p: p.residual)
         notes = sorted({p.note for p in scan if not p.parts and p.note})
-        message = (f"will not circulate steadily: at {surplus.W:.3g} kg/s the liquid head "
-                   f"exceeds the loop's losses by {surplus.residual:.4g} Pa, but no wet, "
-                   "statically stable balance was found"
-                   + ("; the balances found are listed in the other warnings" if crossings
-                      else "")
-                   + (f"; trial flows that could not be rated: {'; '.join(notes)}"
-                      if notes else ""))
+        message = said("will not circulate steadily: at {W:mass_flow:.3g} the liquid head "
+                       "exceeds the loop's losses by {surplus:pressure_difference:.4g}, but no "
+                       "wet, statically stable balance was found{more:text}",
+                       W=surplus.W, surplus=surplus.residual,
+                       more=("; the balances found are listed in the other warnings"
+                             if crossings else "")
+                       + (f"; trial flows that could not be rated: {'; '.join(notes)}"
+                          if notes else ""))
     else:
         best = max(wet, key=lambda p: p.residual)
         deficit = -best.residual
@@ -673,18 +674,23 @@ def _will_not_circulate(case, loop, scan, crossings, curve, methods, n) -> Resul
         share = best.parts["return_line"] / best.required
         helps = []
         if level <= loop.L + lp.return_line_rise:
-            helps.append(f"raise the liquid level by about {rise:.2f} m (to about {level:.2f} m "
-                         "above the bottom tube sheet; a first estimate: the static head also "
-                         "raises the inlet subcooling)")
+            helps.append(said("raise the liquid level by about {rise:length:.2f} (to about "
+                              "{level:length:.2f} above the bottom tube sheet; a first estimate: "
+                              "the static head also raises the inlet subcooling)",
+                              rise=rise, level=level))
         else:
             helps.append("no level below the return nozzle gives enough head")
-        helps.append(f"reduce the loop's losses: there the return line takes "
-                     f"{best.parts['return_line']:.4g} Pa ({share:.0%}) and the inlet line "
-                     f"{best.parts['inlet_line']:.4g} Pa"
-                     + ("; a larger return line helps most" if share > 0.3 else ""))
-        message = (f"will not circulate: the loop needs at least {best.required:.4g} Pa (at "
-                   f"{best.W:.3g} kg/s) and the liquid level gives {loop.available:.4g} Pa; "
-                   + "; or ".join(helps))
+        helps.append(said("reduce the loop's losses: there the return line takes "
+                          "{ret:pressure_difference:.4g} ({share:percent:.0%}) and the inlet line "
+                          "{inlet:pressure_difference:.4g}{more:text}",
+                          ret=best.parts["return_line"], share=share,
+                          inlet=best.parts["inlet_line"],
+                          more="; a larger return line helps most" if share > 0.3 else ""))
+        message = said("will not circulate: the loop needs at least {need:pressure_difference:.4g} "
+                       "(at {W:mass_flow:.3g}) and the liquid level gives "
+                       "{head:pressure_difference:.4g}; {helps:text}{alt:text}",
+                       need=best.required, W=best.W, head=loop.available, helps=helps[0],
+                       alt=said("; or {h:text}", h=helps[1]) if len(helps) > 1 else "")
         summary.update(driving_head_deficit_Pa=deficit, liquid_level_needed_m=level)
     warnings = [note("will-not-circulate", message)]
     warnings += [_crossing_warning(c) for c in crossings]
@@ -724,8 +730,9 @@ def _loop_warnings(case, fluid, loop, chosen, crossings, scan, summary) -> list[
     out += _circulation(case, fluid, chosen.point.outcome.stations, loop.L, summary)
     out += _flux_and_nozzles(case, fluid, loop, summary) + _level(case, loop)
     if case.required_duty and summary["duty_W"] < case.required_duty:
-        out.append(note("duty-not-reached", f"the duty {summary['duty_W']:.4g} W falls short "
-                        f"of the required {case.required_duty:.4g} W"))
+        out.append(note("duty-not-reached", said(
+            "the duty {duty:power:.4g} falls short of the required {required:power:.4g}",
+            duty=summary["duty_W"], required=case.required_duty)))
     if case.boiling.mass_flow is not None:
         out.append(warn("mass-flow-ignored", m=case.boiling.mass_flow))
     return out
