@@ -557,23 +557,25 @@ class Marcher(Stepper):
                 return self._outcome(stations)
             duty = state[3]
         except _PressureZero as exc:
-            return self._outcome(stations, "failed",
-                                 f"the pressure falls to zero at z = {exc.z:.3f} m: "
-                                 "the boiling-side pressure drop exceeds the inlet pressure",
-                                 exhausted=True)
+            return self._outcome(stations, "failed", said(
+                "the pressure falls to zero at z = {z:length:.4g}: the boiling-side pressure "
+                "drop exceeds the inlet pressure", z=exc.z), exhausted=True)
         except _PressureExhausted as exc:
-            return self._outcome(stations, "failed", (
-                f"the boiling-side pressure is used up by friction and acceleration at "
-                f"z = {exc.z:.3f} m: the flow is too large for these tubes (choking is not "
-                "modelled); use more tubes or passes with fewer tubes in series"), exhausted=True)
+            return self._outcome(stations, "failed", said(
+                "the boiling-side pressure is used up by friction and acceleration at "
+                "z = {z:length:.4g}: the flow is too large for these tubes (choking is not "
+                "modelled); use more tubes or passes with fewer tubes in series", z=exc.z),
+                exhausted=True)
         except PropertyError as exc:
             # A pressure below the triple point is the same exhaustion, seen by the properties.
             low = (isinstance(exc, OutOfRangeError) and set(exc.state) == {"P"}
                    and not exc.state["P"] >= P0)
-            return self._outcome(stations, "failed", f"at z = {self.z:.3f} m: {exc}",
+            return self._outcome(stations, "failed", said("at z = {z:length:.4g}: {why:text}",
+                                                          z=self.z, why=str(exc)),
                                  exhausted=low)
         except (ValueError, ZeroDivisionError, OverflowError, RuntimeError) as exc:
-            return self._outcome(stations, "failed", f"no solution at z = {self.z:.3f} m: {exc}")
+            return self._outcome(stations, "failed", said(
+                "no solution at z = {z:length:.4g}: {why:text}", z=self.z, why=str(exc)))
         if stop_duty is not None:
             return self._outcome(stations, "failed", said(
                 "the required duty is not reached within {z_end:length:.3g} of tube "

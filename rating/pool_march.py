@@ -9,6 +9,7 @@ from __future__ import annotations
 import math
 
 from .errors import PropertyError
+from .rules import said
 from .march import (NTU_PER_STEP, PAST_EVENT, QUALITY_PER_STEP, SMALLEST_STEP, MarchOutcome,
                     Station, Stepper, flux_root)
 
@@ -135,13 +136,14 @@ class PoolMarcher(Stepper):
                 z, state, _, _ = self.increments(z, (k + 1) * self.L, self.L / self.n_per_pass,
                                                  state, loc, stations, total)
         except PropertyError as exc:  # the pool's properties are all taken before the march
-            return self._outcome(stations, h0, self._h, "failed", (
-                f"the heating medium leaves its property range at z = {self.z:.3f} m, cooled "
-                f"towards the pool at {min(b.T_sat for b in self.bands):.2f} K (a medium that "
-                f"would freeze there cannot heat this pool): {exc}"))
+            return self._outcome(stations, h0, self._h, "failed", said(
+                "the heating medium leaves its property range at z = {z:length:.4g}, cooled "
+                "towards the pool at {T:temperature:.5g} (a medium that would freeze there "
+                "cannot heat this pool): {why:text}", z=self.z,
+                T=min(b.T_sat for b in self.bands), why=str(exc)))
         except (ValueError, ZeroDivisionError, OverflowError, RuntimeError) as exc:
-            return self._outcome(stations, h0, self._h, "failed",
-                                 f"no solution at z = {self.z:.3f} m: {exc}")
+            return self._outcome(stations, h0, self._h, "failed", said(
+                "no solution at z = {z:length:.4g}: {why:text}", z=self.z, why=str(exc)))
         return self._outcome(stations, h0, state[0])
 
     def _add(self, stations, z, h, loc, duty):

@@ -778,8 +778,8 @@ def _film_boiling(kt, st, march) -> list[RatingWarning]:
         if station.q > 0.0 and station.wall_superheat > critical[band_index]:
             return [warn("film-boiling-superheat", z=station.z, dT=station.wall_superheat,
                          dT_crit=critical[band_index],
-                         where=", where the bundle's boiling curve reaches the single-tube "
-                               f"maximum flux {kt.q_single_max:.4g} W/m^2",
+                         where=said(", where the bundle's boiling curve reaches the single-tube "
+                                    "maximum flux {q:heat_flux:.4g}", q=kt.q_single_max),
                          remedy="lower steam pressure or a cooler heating medium would help")]
     return []
 
@@ -789,17 +789,19 @@ def _pool(case, s) -> list[RatingWarning]:
     lim, k, out = case.limits, case.kettle, []
     over = s["liquid_level_over_bundle_m"]
     if over < lim.kettle_min_level_over_bundle:
-        state = (f"leaves the top {-over:.3f} m of the bundle uncovered" if over < 0.0 else
-                 f"is only {over:.3f} m over the bundle (limit "
-                 f"{lim.kettle_min_level_over_bundle:g} m)")
+        state = (said("leaves the top {h:length:.3g} of the bundle uncovered", h=-over)
+                 if over < 0.0 else
+                 said("is only {h:length:.3g} over the bundle (limit {limit:length:.3g})",
+                      h=over, limit=lim.kettle_min_level_over_bundle))
         out.append(warn("bundle-uncovered", weir=k.weir_height,
                         crest=over + k.bundle_top - k.weir_height, state=state))
     if s["freeboard_m"] < lim.kettle_min_freeboard:
         out.append(warn("freeboard", h=s["freeboard_m"], limit=lim.kettle_min_freeboard))
     u, u_max = s["surface_vapour_velocity_m_s"], s["surface_vapour_velocity_limit_m_s"]
     if u > u_max:
-        what = (f"vapour velocity at the liquid surface {u:.3g} m/s exceeds {u_max:.3g} m/s"
-                if math.isfinite(u) else "the liquid fills the kettle shell")
+        what = (said("vapour velocity at the liquid surface {u:velocity:.3g} exceeds "
+                     "{u_max:velocity:.3g}", u=u, u_max=u_max)
+                if u is not None and math.isfinite(u) else "the liquid fills the kettle shell")
         out.append(warn("entrainment", what=what, d_min=s["min_kettle_diameter_m"], u_max=u_max))
     return out
 
