@@ -99,3 +99,19 @@ def test_the_bundle_carries_every_command_the_package_installs():
     build = importlib.util.module_from_spec(spec)
     spec.loader.exec_module(build)
     assert sorted(build.COMMAND_LINKS) == sorted(scripts)
+
+
+def test_the_bundle_check_leaves_out_only_the_time_a_case_was_rated():
+    # Two runs of one sample differ in the time stamp alone; any other field that differs
+    # (a number, the case's hash) must still fail the bundle's check.
+    spec = importlib.util.spec_from_file_location("check_bundle", PACKAGING / "check_bundle.py")
+    check = importlib.util.module_from_spec(spec)
+    spec.loader.exec_module(check)
+    run = {"cases": [{"summary": {"duty_W": 1429302.5446318071},
+                      "provenance": {"rated_at": "2026-12-02T11:22:12+00:00", "case_sha256": "ab"}}]}
+    later = {"cases": [{"summary": {"duty_W": 1429302.5446318071},
+                        "provenance": {"rated_at": "2026-12-02T11:22:16+00:00", "case_sha256": "ab"}}]}
+    assert check.differences(run, later) == []
+    later["cases"][0]["summary"]["duty_W"] = 1429302.5446318074
+    later["cases"][0]["provenance"]["case_sha256"] = "ac"
+    assert len(check.differences(run, later)) == 2
