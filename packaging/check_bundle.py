@@ -231,10 +231,14 @@ def check_desktop_files(bundle: Path, home: Path, check: Check) -> None:
 
 def main(argv=None) -> int:
     argv = sys.argv[1:] if argv is None else argv
-    if len(argv) != 1:
+    if len(argv) != 1 or argv[0].startswith("-"):
         print(__doc__)
         return 2
     given = Path(argv[0]).resolve()
+    if not (tarfile.is_tarfile(given) if given.is_file() else (given / "ebullio").is_file()):
+        print(f"check_bundle.py: {argv[0]} is neither a bundle archive nor an unpacked bundle "
+              "folder (one holding the 'ebullio' program)", file=sys.stderr)
+        return 2
     check = Check()
     shutil.rmtree(SHOTS, ignore_errors=True)
     with tempfile.TemporaryDirectory(prefix="ebullio-bundle-check-") as scratch:
