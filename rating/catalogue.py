@@ -832,10 +832,9 @@ SUMMARY: dict[str, ResultField] = _results([
      "Steam flow the duty condenses (saturated steam in, condensate out)"),
     ("max_heat_flux_W_m2", "Largest local heat flux", "heat_flux", ALL,
      "Largest flux at any station, on the boiling surface"),
-    ("mean_heat_flux_W_m2", "Mean heat flux", "heat_flux", _TS,
-     "Duty / heated area; the quantity Kern's flux limit for thermosiphons is stated in"),
-    ("average_heat_flux_W_m2", "Mean bundle heat flux", "heat_flux", _KT,
-     "Duty / outside area of the bundle; compared with the bundle maximum heat flux"),
+    ("mean_heat_flux_W_m2", "Mean heat flux", "heat_flux", _TS + _KT,
+     "Duty / heated area: for a thermosiphon the quantity Kern's flux limit is stated in; "
+     "for a kettle over the bundle's outside area, compared with the bundle maximum flux"),
     ("max_chf_ratio", "Largest flux / critical flux", "dimensionless", ALL,
      "Largest ratio of a flux to its limit of the same kind: local flux over local critical "
      "flux in tubes; the bundle's mean flux over the bundle maximum flux in a kettle"),
@@ -858,8 +857,9 @@ SUMMARY: dict[str, ResultField] = _results([
     ("circulation_kg_s", "Circulation", "mass_flow", _TS, "Flow through the tubes"),
     ("circulation_ratio", "Circulation ratio", "dimensionless", _TS,
      "Total mass flow through the tubes per unit of vapour generated (1 / exit quality)"),
-    ("vapour_flow_kg_s", "Vapour generated", "mass_flow", _TS,
-     "Vapour leaving the tubes: circulation x exit quality"),
+    ("vapour_flow_kg_s", "Vapour generated", "mass_flow", _TS + _KT,
+     "Vapour leaving the tubes (thermosiphon: circulation x exit quality) or the liquid "
+     "surface (kettle, feed vapour included)"),
     ("pressure_balance_residual_Pa", "Pressure balance residual", "pressure_difference", _TS,
      "Available head minus the loop's losses at the circulation found; near 0 when the "
      "balance is solved"),
@@ -897,8 +897,6 @@ SUMMARY: dict[str, ResultField] = _results([
     ("mixture_factor", "Mixture factor", "dimensionless", _KT,
      "Mixture over pure-fluid nucleate coefficient (at most 1); not computed when the "
      "method depends on the local flux"),
-    ("vapour_generation_kg_s", "Vapour generated", "mass_flow", _KT,
-     "Vapour leaving the liquid surface, feed vapour included"),
     ("surface_vapour_velocity_m_s", "Vapour velocity at the liquid surface", "velocity", _KT,
      "Vapour flow over the liquid surface's area (chord at the level x tube length)"),
     ("surface_vapour_velocity_limit_m_s", "Limit of the surface vapour velocity", "velocity",

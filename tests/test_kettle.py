@@ -126,7 +126,7 @@ def test_wolverine_kettle_example_coefficient_against_book_and_test_unit(wolveri
     # missed by 7 %: ours within 10 %
     assert U == pytest.approx(440.0, rel=0.10)
     # uniform steam-side resistance: the flux is the average, q = U dT (book step 9)
-    q = s["average_heat_flux_W_m2"] / BTU_FT2
+    q = s["mean_heat_flux_W_m2"] / BTU_FT2
     assert q == pytest.approx(U * 65.0, rel=0.01)
 
 
@@ -168,7 +168,7 @@ def test_wolverine_bundle_factor_maximum_flux_and_mixture_factor(wolverine):
     # step 2: F_m = exp(-0.015 x 60) = 0.41
     assert s["mixture_factor"] == pytest.approx(0.41, rel=0.01)
     # step 10: the flux is below the bundle maximum and Phi_b > 0.1: no warning
-    assert s["average_heat_flux_W_m2"] < s["bundle_max_heat_flux_W_m2"]
+    assert s["mean_heat_flux_W_m2"] < s["bundle_max_heat_flux_W_m2"]
     assert not {"bundle-flux-limit", "bundle-factor-small"} & set(codes(wolverine))
     # the book's 360 ends in 2 ft come from the approximate count pi D_b^2 / (4 p_t^2);
     # the exact layout holds fewer, which is reported
@@ -362,7 +362,7 @@ def test_profiles_and_summary_keys(samples):
     case, r = samples["Harrow Creek C5 reboiler E-21 on LP steam"]
     d = r.to_dict()
     assert set(SUMMARY_KEYS) <= set(d["summary"])
-    for key in ("bundle_max_heat_flux_W_m2", "bundle_factor", "vapour_generation_kg_s",
+    for key in ("bundle_max_heat_flux_W_m2", "bundle_factor", "vapour_flow_kg_s",
                 "surface_vapour_velocity_m_s", "surface_vapour_velocity_limit_m_s",
                 "min_kettle_diameter_m"):
         assert isinstance(d["summary"][key], float), key
@@ -406,7 +406,7 @@ def test_vapour_nozzle_rho_v2(samples):
     P = case.boiling.inlet_pressure
     rho_v = CP.PropsSI("D", "P", P, "Q", 1, "n-Pentane")
     d = case.kettle.vapour_nozzle_diameter
-    v = r.summary["vapour_generation_kg_s"] / (rho_v * math.pi * d ** 2 / 4)
+    v = r.summary["vapour_flow_kg_s"] / (rho_v * math.pi * d ** 2 / 4)
     assert r.summary["vapour_outlet_rho_v2_kg_m_s2"] == pytest.approx(rho_v * v ** 2, rel=1e-6)
     narrow = rating.rate(dataclasses.replace(case, kettle=dataclasses.replace(
         case.kettle, vapour_nozzle_diameter=0.15)))
@@ -483,7 +483,7 @@ def test_cli_prints_the_kettle_keys(capsys):
     out = capsys.readouterr().out
     assert code == 0
     from rating.catalogue import SUMMARY
-    for key in ("bundle_max_heat_flux_W_m2", "bundle_factor", "vapour_generation_kg_s",
+    for key in ("bundle_max_heat_flux_W_m2", "bundle_factor", "vapour_flow_kg_s",
                 "surface_vapour_velocity_limit_m_s", "min_kettle_diameter_m"):
         assert SUMMARY[key].label in out, key
 

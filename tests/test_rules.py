@@ -98,7 +98,7 @@ def _between_bundle_fluxes():
     """A bundle-flux ratio between the kettle's average and largest local flux over its
     bundle maximum: the local flux passes it, the average does not."""
     s = rating.rate(sample("harrow-creek-kettles.ebullio")).summary
-    ratio = 0.5 * (s["average_heat_flux_W_m2"] + s["max_heat_flux_W_m2"]) \
+    ratio = 0.5 * (s["mean_heat_flux_W_m2"] + s["max_heat_flux_W_m2"]) \
         / s["bundle_max_heat_flux_W_m2"]
     return variant("harrow-creek-kettles.ebullio", limits__kettle_bundle_flux_ratio=ratio)
 

@@ -64,9 +64,9 @@ Summary keys (the evaporator's, with a kettle meaning):
 
 and the kettle's own: ``bundle_max_heat_flux_W_m2``, ``bundle_factor`` (Palen's
 geometry factor Phi_b, whichever maximum-flux method is chosen),
-``vapour_generation_kg_s`` (vapour leaving the liquid surface, feed vapour included),
+``vapour_flow_kg_s`` (vapour leaving the liquid surface, feed vapour included),
 ``surface_vapour_velocity_m_s``, ``surface_vapour_velocity_limit_m_s``,
-``min_kettle_diameter_m``, plus the average flux, single-tube maximum flux, mixture
+``min_kettle_diameter_m``, plus the mean flux (``mean_heat_flux_W_m2``), single-tube maximum flux, mixture
 factor, level over the bundle, freeboard, overflow and nozzle rho v^2.
 
 Profiles are along the tube-side path with the evaporator's keys (meanings in
@@ -702,11 +702,11 @@ def kettle_summary(case, primary, performance, check) -> dict:
         "over_surface_pct": None,
         "bundle_max_heat_flux_W_m2": kt.q_bundle_max,
         "bundle_factor": kt.phi_b,
-        "vapour_generation_kg_s": m_vapour,
+        "vapour_flow_kg_s": m_vapour,
         "surface_vapour_velocity_m_s": surface["u"],
         "surface_vapour_velocity_limit_m_s": surface["u_max"],
         "min_kettle_diameter_m": surface["d_min"],
-        "average_heat_flux_W_m2": duty / area_marched,
+        "mean_heat_flux_W_m2": duty / area_marched,
         "single_tube_max_heat_flux_W_m2": kt.q_single_max,
         "bundle_boiling_factor": k.bundle_boiling_factor,
         "mixture_factor": kt.mixture_factor,
@@ -750,7 +750,7 @@ def _warnings(case, primary, s) -> list[RatingWarning]:
 def _bundle(case, kt, st, s) -> list[RatingWarning]:
     """Bundle flux against Palen's maximum, the geometry factor, the smallest flux."""
     lim, out = case.limits, []
-    q_b, ratio, q_mean = kt.q_bundle_max, lim.kettle_bundle_flux_ratio, s["average_heat_flux_W_m2"]
+    q_b, ratio, q_mean = kt.q_bundle_max, lim.kettle_bundle_flux_ratio, s["mean_heat_flux_W_m2"]
     if q_mean > ratio * q_b:
         remedy = ("vapour lanes or a wider pitch" if kt.phi_b < 2.0 * lim.kettle_min_bundle_factor
                   else "a larger bundle diameter, a cooler heating medium or less duty")
