@@ -65,8 +65,8 @@ ALONG_TUBE = (
 FONT = 8
 DPI = 100            # figure units: one logical pixel is 1/DPI inch
 BASE_POINTS = 10.0   # a system font larger than this enlarges the plots in proportion
-CAUTION_SHORT = ("Ebullio: engineering estimates, to be checked by a qualified engineer "
-                 "under local codes and licensed practice")
+CAUTION_SHORT = ("Ebullio: engineering estimates, to be checked by a qualified engineer\n"
+                 "under local codes and licensed practice")     # two lines: room beside it
 
 
 def _quantity(key: str) -> str:
@@ -292,7 +292,8 @@ class AlongTubeFigure:
                 ghost.set_data(oz, _display(vals, _quantity(key), self.system))
             else:
                 ghost.set_data([], [])
-        self.compare_text.set_text(f"faint lines: {other_name}" if other is not None else "")
+        name = other_name if len(other_name) <= 60 else other_name[:58] + "…"
+        self.compare_text.set_text(f"faint lines: {name}" if other is not None else "")
         # shaded regimes
         regimes = profiles.get("regime", ())
         runs = _runs(list(z), list(regimes)) if len(z) else []

@@ -124,6 +124,7 @@ class UnitSketch(QWidget):
 
         def y(z):
             return base_y - z * s
+        labels = []                     # (baseline, text), drawn last without overlapping
         # column and its liquid
         p.setPen(QPen(STEEL, 1.6))
         p.setBrush(QColor("#f4f6f8"))
@@ -133,8 +134,7 @@ class UnitSketch(QWidget):
             p.fillRect(liq.intersected(col), LIQUID)
             p.setPen(QPen(QColor(C["blue"]), 1.4, Qt.DashLine))
             p.drawLine(QPointF(col.left() - 12, y(level)), QPointF(reb.right() + 12, y(level)))
-            p.setPen(INK)
-            p.drawText(QPointF(reb.right() + 16, y(level) + 4), f"level {self._len(level)}")
+            labels.append((y(level) + 4, f"level {self._len(level)}"))
         # reboiler
         p.setPen(QPen(STEEL, 1.6))
         p.setBrush(QColor("#f4f6f8"))
@@ -152,11 +152,12 @@ class UnitSketch(QWidget):
         p.drawPolyline([QPointF(reb.center().x(), reb.top()), QPointF(reb.center().x(), ret_y),
                         QPointF(col.right(), ret_y)])
         p.setPen(INK)
-        p.drawText(QPointF(reb.right() + 16, reb.center().y()), f"tubes {self._len(L)}")
         p.drawText(QPointF(col.left(), box.top() + 10), "column")
+        labels.append((reb.center().y(), f"tubes {self._len(L)}"))
+        labels.append((base_y + 4, "bottom tube sheet"))
+        _spread_labels(p, reb.right() + 16, labels, box.top() + 12, box.bottom())
         p.setPen(QColor("#777777"))
         p.drawLine(QPointF(col.left() - 12, base_y), QPointF(reb.right() + 12, base_y))
-        p.drawText(QPointF(reb.right() + 16, base_y + 4), "bottom tube sheet")
         return True
 
     # --- kettle: the end view of the shell, the bundle, the liquid up to the weir
