@@ -296,6 +296,12 @@ def findings(fit, parameters, system: str) -> list[str]:
     for p in loose if len(loose) == 1 else ():
         q = catalogue.input_field(p).quantity
         bounds = next(b for b in parameters if b.path == p)
+        if _narrower(fit, bounds):
+            lo, hi = fit.interval
+            out.append(f"{label[p]} is not identifiable near its fitted value: the measured "
+                       "results hardly change with it there; the measurements leave it "
+                       f"anywhere from {shown(lo, q)} to {shown(hi, q)}")
+            continue
         out.append(f"{label[p]} is not identifiable: over its whole range, "
                    f"{shown(bounds.lower, q)} to {shown(bounds.upper, q)}, the measured results "
                    "change by less than about twice their tolerances")
@@ -320,6 +326,12 @@ def findings(fit, parameters, system: str) -> list[str]:
         out.append(f"poor fit: the misfit (chi-square {fit.chi_square:.3g} on {dof} degrees "
                    "of freedom) is larger than the tolerances explain")
     return out
+
+
+def _narrower(fit, bounds) -> bool:
+    """The ratings leave a one-parameter fit a span narrower than its whole range."""
+    interval = getattr(fit, "interval", None)
+    return interval is not None and interval[1] - interval[0] < bounds.upper - bounds.lower
 
 
 def value_and_uncertainty(value: float, u: float) -> tuple[str, str]:
@@ -386,7 +398,7 @@ def draw(axes, fit, system: str) -> str:
         x = _display([t[0][first] for t in trials], fq, system)
         rms = np.array([math.sqrt(m / n) for _, m in trials])
         left.plot(x, rms, "o-", color=C["blue"], ms=3.5, lw=1.2)
-        left.set_ylabel("Misfit, RMS [tolerances]", fontsize=FONT)
+        left.set_ylabel("Misfit, RMS\n[tolerances]", fontsize=FONT)   # short axes: two lines
         left.axhline(1.0, color="#777777", ls="--", lw=0.9)
         left.text(0.99, 1.0, "one tolerance", transform=left.get_yaxis_transform(),
                   ha="right", va="bottom", fontsize=FONT - 1, color="#555555")
@@ -402,6 +414,9 @@ def draw(axes, fit, system: str) -> str:
                         fontsize=FONT)
     v = units.to_display(fit.values[first], fq, system)
     u = fit.uncertainty.get(first)
+    if u is None and getattr(fit, "interval", None) is not None and len(paths) == 1:
+        lo, hi = (units.to_display(b, fq, system) for b in fit.interval)
+        left.axvspan(lo, hi, color="#999999", alpha=0.15, lw=0)   # what the data leave open
     if fit.status not in ("failed", "cancelled"):
         if u is not None:
             du = _difference(u, fq, system)

@@ -400,3 +400,24 @@ def test_kettle_envelope_marks_a_feed_that_the_bundle_boils_dry(kettle):
     assert any(list(row) == [True, False] for row in within)    # the edge lies in the grid
     failed = env.points[0]
     assert failed.status == "failed" and "boil off" in failed.message
+
+
+def test_a_flat_model_near_the_answer_reports_what_the_data_leave_open(pentane):
+    """The pentane vaporiser dries out inside its tubes: while the dryout point moves along
+    the tube the duty hardly changes with the boiling-side fouling, then falls once the
+    fouling pushes the dryout off the tube. A duty measured to 3 % at the sample's own
+    fouling cannot fix the fouling near it (the local slope is flat), but it does rule out
+    the values whose rating misses the duty by more than two tolerances. The fit says
+    both: not identifiable, and the span it leaves open, whose upper end is checked here
+    by a rating made at it."""
+    duty = rating.rate(pentane).summary["duty_W"]
+    tolerance = 0.03 * duty
+    result = fit(pentane, [Measurement("duty_W", duty, tolerance)],
+                 [Parameter("boiling.fouling_resistance", 0.0, 2e-3)], executor=InlineExecutor())
+    assert result.status == "unidentifiable"
+    low, high = result.interval
+    assert low <= pentane.boiling.fouling_resistance <= high
+    assert high - low < 0.5 * 2e-3                    # the data exclude most of the range
+    at_high = rating.rate(catalogue.with_value(pentane, "boiling.fouling_resistance", high))
+    assert abs(at_high.summary["duty_W"] - duty) > 2.0 * tolerance
+    assert any("leave it anywhere from" in w for w in result.warnings)

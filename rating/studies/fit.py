@@ -15,6 +15,13 @@ A parameter is reported unidentifiable when the measurements fix it (alone or in
 combination with others) to no better than half its allowed range; the fit is
 reported poor when a measurement is missed by more than twice its tolerance or the
 sum of squares is improbable (chi-square, 5 %).
+
+The linearised uncertainty sees only the slope at the answer. Where the model is flat
+there and steep further away (a dryout that holds the duty while the fouling changes,
+then moves off the tube), a one-parameter fit also reports the span of its ratings
+whose misfit is within two standard deviations of the best (chi-square within 4 of the
+minimum), widened to the next rating on each side that is outside it: the values the
+measurements leave open, however flat the model is at the answer.
 """
 from __future__ import annotations
 
@@ -76,6 +83,9 @@ class Fit:
     #: every rating the fit made: (values by path, sum of squared normalised misfits,
     #: None where a measured result was not computed), in the order of the values
     trials: tuple = ()
+    #: one-parameter fits: (low, high) of the values the ratings found within two standard
+    #: deviations of the best misfit (see the module's notes); None otherwise
+    interval: tuple | None = None
 
     def to_dict(self) -> dict:
         return {"study": "fit", "status": self.status, "message": self.message,
@@ -86,7 +96,8 @@ class Fit:
                 "measurements": [{"key": k, "measured": m, "model": f, "normalised": r}
                                  for k, m, f, r in self.residuals],
                 "chi_square": self.chi_square, "warnings": list(self.warnings),
-                "ratings": self.ratings, "correlation": self.correlation}
+                "ratings": self.ratings, "correlation": self.correlation,
+                "interval": None if self.interval is None else list(self.interval)}
 
 
 def _check(case, measurements, parameters):
@@ -228,12 +239,20 @@ def _report(case, measurements, parameters, solution, jac, rated, ratings, value
     correlation = [[float(cov[i, j] / (sd[i] * sd[j])) if sd[i] > 0 and sd[j] > 0 else None
                     for j in range(len(paths))] for i in range(len(paths))]
 
+    trials = _trials(rated, measurements, values_at)
+    interval = _interval(trials, paths[0]) if len(paths) == 1 else None
     for k in loose:
         names = [paths[i] for i in range(len(paths)) if abs(eigvec[i, k]) > 0.3]
         if len(names) > 1:
             warnings.append(f"{' and '.join(names)} cannot be told apart by these measurements: "
                             "only a combination of them is fixed; measure another result "
                             "or fit one of them")
+        elif interval is not None and interval[1] - interval[0] < \
+                parameters[0].upper - parameters[0].lower:
+            warnings.append(f"{names[0]} is not identifiable near {values[names[0]]:.4g}: the "
+                            "measured results hardly change with it there; the measurements "
+                            f"leave it anywhere from {interval[0]:.4g} to {interval[1]:.4g} "
+                            f"{catalogue.input_field(names[0]).unit}")
         else:
             warnings.append(f"{names[0]} is not identifiable: over its whole range "
                             f"{parameters[paths.index(names[0])].lower:g} to "
@@ -271,7 +290,19 @@ def _report(case, measurements, parameters, solution, jac, rated, ratings, value
     fitted_case = case_at(case, values)
     return Fit(status, message, values, uncertainty, identifiable, tuple(residuals), chi2,
                tuple(warnings), ratings, fitted_case, point.result if point else None,
-               correlation, _trials(rated, measurements, values_at))
+               correlation, trials, interval)
+
+
+def _interval(trials, path):
+    """(low, high) of the values within chi-square 4 of the best rating, each widened to the
+    next rating outside; None without ratings that computed every measured result."""
+    rated = sorted((values[path], misfit) for values, misfit in trials if misfit is not None)
+    if not rated:
+        return None
+    best = min(m for _, m in rated)
+    inside = [i for i, (_, m) in enumerate(rated) if m <= best + 4.0]
+    lo, hi = max(inside[0] - 1, 0), min(inside[-1] + 1, len(rated) - 1)
+    return rated[lo][0], rated[hi][0]
 
 
 def _trials(rated, measurements, values_at) -> tuple:
