@@ -211,7 +211,7 @@ class AlongTubeFigure:
     """The profiles along the heated length, six panels on one shared z axis."""
 
     grid = (3, 2)
-    MARGINS = (72, 14, 30, 62, 34, 80)
+    MARGINS = (72, 14, 40, 62, 34, 80)     # top: the caution, two lines
 
     def __init__(self, figure):
         self.figure = figure
@@ -249,6 +249,9 @@ class AlongTubeFigure:
                                         fontsize=FONT - 1, color="#555555")
         self.message = self.axes[0].text(0.5, 0.5, "", transform=self.axes[0].transAxes,
                                          ha="center", va="center", fontsize=FONT + 1, color="#555555")
+        # the critical flux far above the flux: said in words, not drawn off the axis
+        self.chf_note = self.axes[1].text(0.99, 0.5, "", transform=self.axes[1].transAxes,
+                                          ha="right", va="center", fontsize=FONT - 1, color=C["vermillion"])
         self.system = "SI"
         self.mark_z = None
         self._pass_lines = []
@@ -341,10 +344,16 @@ class AlongTubeFigure:
         """The flux panel scales to the heat flux, showing the critical flux where it is near."""
         q = np.asarray(self.lines["heat_flux_W_m2"].get_ydata(), float)
         chf = np.asarray(self.lines["critical_heat_flux_W_m2"].get_ydata(), float)
+        self.chf_note.set_text("")
         if q.size and np.isfinite(q).any():
             top = np.nanmax(q)
             if chf.size and np.isfinite(chf).any():
-                top = max(top, min(np.nanmin(chf), 8.0 * top))
+                lowest = np.nanmin(chf)
+                top = max(top, min(lowest, 8.0 * top))
+                if lowest > 1.1 * top:
+                    unit = units.unit_label("heat_flux", self.system)
+                    self.chf_note.set_text(f"critical heat flux above the axis:\n"
+                                           f"at least {units.format_number(lowest)} {unit}")
             if top > 0:
                 self.axes[1].set_ylim(0, 1.1 * top)
 

@@ -332,3 +332,28 @@ def test_no_widget_opens_as_a_window_of_its_own(window, qtbot):
     plotted(qtbot, w)
     stray = [t for t in QApplication.topLevelWidgets() if t.isVisible() and t is not w]
     assert stray == [], [(type(t).__name__, t.objectName(), t.geometry()) for t in stray]
+
+
+def test_the_plots_are_drawn_off_the_gui_thread_and_a_hidden_panel_waits(window, qtbot):
+    """A draw of the six panels takes a good part of a second: it happens on the render
+    thread, never on the thread that runs the window; a panel on a hidden tab is drawn
+    only when its tab is shown."""
+    import threading
+
+    w = window
+    open_rated(qtbot, w)
+    figure = plotted(qtbot, w)
+    drawn_on = []
+    figure.figure.canvas.mpl_connect("draw_event", lambda _e: drawn_on.append(threading.get_ident()))
+    with qtbot.waitSignal(w.along.drawn, timeout=RATING_TIMEOUT_MS):
+        w.set_system("US")
+    assert drawn_on and threading.main_thread().ident not in drawn_on
+    w.tabs.setCurrentWidget(w.side_tab)          # the plots hidden: an edit queues, no draw
+    drawn_on.clear()
+    with qtbot.waitSignal(w.runner.resultArrived, timeout=RATING_TIMEOUT_MS,
+                          check_params_cb=lambda i: i == w.current_id):
+        set_text(qtbot, w, "boiling.mass_flow", "14000")
+    qtbot.wait(300)
+    assert drawn_on == [] and not w.along.settled()
+    plotted(qtbot, w)                            # shown again: drawn with the new result
+    assert drawn_on and threading.main_thread().ident not in drawn_on
