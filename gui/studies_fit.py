@@ -443,7 +443,5 @@ def draw(axes, fit, system: str) -> str:
                           fontsize=FONT)
     right.set_ylim(-0.7, len(r) - 0.3)
     right.set_xlabel("Model − measured [tolerances]", fontsize=FONT)
-    right.set_title("Each measurement", fontsize=FONT,
-                    loc="left", color=INK)
     # the line is the fitted value, the band its ± 1 s.d.: the verdict above says both
     return "Misfit of each rating" if fit.trials else VERDICTS[fit.status]

@@ -504,6 +504,14 @@ class StudiesPanel(QWidget):
             box = legend.get_window_extent(renderer)
             if box.x0 > axes[-1].get_window_extent(renderer).x1:     # outside, on the right
                 right = box.width + 24
+        # a title that would reach under the caution every saved picture carries (top
+        # right) starts below it
+        titles = [a._left_title.get_window_extent(renderer) for a in axes
+                  if a.get_title(loc="left")]
+        cautions = [t.get_window_extent(renderer) for t in fig.texts if t.get_text()]
+        under = any(c.x0 < b.x1 + 6 for b in titles for c in cautions)
+        top = max((b.height for b in titles), default=0.0) + 10 + (
+            max(c.height for c in cautions) if under else 0.0)
         self.plot.MARGINS = (left, right, top, bottom, hgap, wgap)
         self.plot._relayout()
 
