@@ -24,9 +24,10 @@ def _display(system: str):
         label = units.unit_label(quantity, system)
         shown = units.to_display(value, quantity, system)
         spec = spec or ".4g"
-        if spec.endswith("g"):   # significant figures, as the tables show them: no exponent
-            return f"{units.format_number(shown, int(spec[1:-1] or 4))} {label}"
-        return f"{format(shown, spec)} {label}"
+        text = format(shown, spec)
+        if "e" in text and spec.endswith("g"):   # 31,942 lb/h, not 3.19e+04 lb/h
+            text = units.format_number(shown, int(spec[1:-1] or 4))
+        return f"{text} {label}"
     return fmt
 
 
