@@ -178,7 +178,7 @@ def _run(args):
 
         check_increments(args.increments, "--increments")
     if args.csv:
-        _check_csv(args.csv)
+        _check_csv(args.csv, args.file)
     project = load_project(args.file)
     case = _pick_case(project, args.case, args.file)
     if args.list_paths:
@@ -309,16 +309,36 @@ def _bad(kind, study) -> bool:
 
 
 def _clean(v):
-    if isinstance(v, float) and not math.isfinite(v):
-        return None
+    """JSON-safe data: a figure that is not finite is not computed (null), numpy scalars
+    become plain numbers. ``json.dumps(default=...)`` never sees a float, so the cleaning
+    is done on the data themselves."""
+    import numpy as np     # loaded by then: the study has run
+
+    if isinstance(v, dict):
+        return {k: _clean(x) for k, x in v.items()}
+    if isinstance(v, (list, tuple)):
+        return [_clean(x) for x in v]
+    if isinstance(v, (bool, np.bool_)):
+        return bool(v)
+    if isinstance(v, (int, np.integer)):
+        return int(v)
+    if isinstance(v, (float, np.floating)):
+        return float(v) if math.isfinite(v) else None
     return v
 
 
-def _check_csv(path):
-    """Refuse an output the study could not write, before any point is rated."""
+def _check_csv(path, source):
+    """Refuse an output the study could not write, or must not (the project itself, a file
+    that is not a table), before any point is rated: a user's file is never overwritten
+    by a mistyped option."""
     target = Path(path)
+    if target.suffix.lower() != ".csv":
+        raise _refused(f"--csv {path}: must end in .csv (a table is never written over "
+                       "a file of another kind)")
     if target.is_dir() or not target.parent.is_dir():
         raise _refused(f"--csv {path}: not a file in an existing folder")
+    if target.resolve() == Path(source).resolve():
+        raise _refused(f"--csv {path}: is the project file being studied; name another file")
 
 
 def _main(args) -> int:
@@ -330,7 +350,7 @@ def _main(args) -> int:
     if args.json:
         data = study.to_dict(keys) if kind in ("sweep", "envelope") else study.to_dict()
         data["caution"] = CAUTION
-        write_out(json.dumps(data, indent=1, default=_clean) + "\n")
+        write_out(json.dumps(_clean(data), indent=1, allow_nan=False) + "\n")
     else:
         write_out(_text(kind, case, study, keys) + "\n\n" + CAUTION + "\n")
     if args.csv:

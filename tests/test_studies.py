@@ -421,3 +421,40 @@ def test_a_flat_model_near_the_answer_reports_what_the_data_leave_open(pentane):
     at_high = rating.rate(catalogue.with_value(pentane, "boiling.fouling_resistance", high))
     assert abs(at_high.summary["duty_W"] - duty) > 2.0 * tolerance
     assert any("leave it anywhere from" in w for w in result.warnings)
+
+
+# --- what a point's status says ----------------------------------------------------------
+
+def test_an_engine_fault_while_building_a_point_is_a_failed_point_not_a_refusal():
+    """Only the engine's InputError is the user's input refused; a KeyError or ValueError
+    while building a case is a fault in Ebullio and is said to be one."""
+    from rating.studies import Job, rate_points
+
+    def broken():
+        raise KeyError("heating.kind")
+
+    def bad_input():
+        raise InputError("tubes.length = -1 m: must be > 0", field="tubes.length")
+
+    jobs = [Job.build({"a": 1}, broken), Job.build({"a": 2}, bad_input),
+            Job.build({"a": 3}, lambda: (_ for _ in ()).throw(ValueError("math domain")))]
+    points = rate_points(jobs, executor=InlineExecutor())
+    assert [p.status for p in points] == ["failed", REFUSED, "failed"]
+    assert "fault in Ebullio" in points[0].message and "heating.kind" in points[0].message
+    assert "fault" not in points[1].message and "tubes.length" in points[1].message
+    assert "fault in Ebullio" in points[2].message and "math domain" in points[2].message
+
+
+def test_a_point_as_data_reads_the_summary_without_serialising_the_profiles(pentane,
+                                                                            monkeypatch):
+    s = sweep(pentane, [Variation("tubes.length", (3.0,))], executor=InlineExecutor())
+    point = s.points[0]
+
+    def forbidden(self):
+        raise AssertionError("Result.to_dict serialises every profile")
+
+    monkeypatch.setattr(rating.results.Result, "to_dict", forbidden)
+    data = point.to_dict(["duty_W", "exit_quality"])
+    assert data["summary"] == {"duty_W": point.result.summary["duty_W"],
+                               "exit_quality": point.result.summary["exit_quality"]}
+    assert set(point.to_dict()["summary"]) == set(point.result.summary)

@@ -3,8 +3,10 @@ from __future__ import annotations
 
 import csv
 import json
+import math
 from pathlib import Path
 
+import numpy as np
 import pytest
 
 from rating import study_cli
@@ -91,3 +93,51 @@ def test_bad_input_gives_one_line_and_exit_2(argv, words, capsys):
 def test_several_cases_need_a_name(capsys):
     code, _, err = run([PENTANE, "--vary", "tubes.length=1:2:3"], capsys)
     assert code == 2 and "--case is needed" in err and CASE in err
+
+
+def test_csv_never_overwrites_the_project_or_a_file_of_another_kind(tmp_path, capsys,
+                                                                     monkeypatch):
+    """--csv naming the project (directly, by another spelling, through a link ending in
+    .csv) or a file that is not a .csv is refused with one line; both files keep their
+    bytes."""
+    project = tmp_path / "p.ebullio"
+    project.write_bytes(PENTANE.read_bytes())
+    notes = tmp_path / "notes.txt"
+    notes.write_text("my notes\n", encoding="utf-8")
+    link = tmp_path / "p.csv"
+    link.symlink_to(project)
+    monkeypatch.chdir(tmp_path)
+    before = project.read_bytes()
+    for target in (project, "./p.ebullio", link, notes):
+        code, out, err = run([project, "--case", CASE, "--vary", "tubes.length=2,3",
+                              "--workers", "1", "--csv", target], capsys)
+        assert code == 2 and out == "", target
+        assert err.count("\n") == 1 and "--csv" in err and "Traceback" not in err
+    assert project.read_bytes() == before
+    assert notes.read_text(encoding="utf-8") == "my notes\n"
+
+
+def test_json_is_strict_whatever_the_study_holds(capsys, monkeypatch):
+    """A figure that is not finite anywhere in the study's data prints as null: the output
+    is JSON that a strict parser reads (no NaN or Infinity tokens)."""
+    from rating.studies.sweep import Sweep
+
+    plain = Sweep.to_dict
+
+    def with_non_finite(self, keys=None):
+        data = plain(self, keys)
+        data["points"][0]["summary"]["duty_W"] = float("nan")
+        data["points"][0]["extra"] = [np.float64("inf"), {"x": -math.inf}]
+        return data
+
+    monkeypatch.setattr(Sweep, "to_dict", with_non_finite)
+    code, out, err = run([PENTANE, "--case", CASE, "--vary", "tubes.length=2,3", "--json",
+                          "--workers", "1"], capsys)
+
+    def refuse(token):
+        raise ValueError(f"not JSON: {token}")
+
+    data = json.loads(out, parse_constant=refuse)
+    assert data["points"][0]["summary"]["duty_W"] is None
+    assert data["points"][0]["extra"] == [None, {"x": None}]
+    assert data["points"][1]["summary"]["duty_W"] > 0.0

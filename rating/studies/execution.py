@@ -54,9 +54,10 @@ class Point:
         return set() if self.result is None else {w.code for w in self.result.warnings}
 
     def to_dict(self, keys=None) -> dict:
-        summary = {} if self.result is None else self.result.to_dict()["summary"]
-        if keys is not None:
-            summary = {k: summary.get(k) for k in keys}
+        # The summary as it is (a Result holds None for a figure not computed, never NaN);
+        # the profiles are not serialised just to read it.
+        summary = {} if self.result is None else self.result.summary
+        summary = dict(summary) if keys is None else {k: summary.get(k) for k in keys}
         return {"inputs": dict(self.inputs), "status": self.status, "message": self.message,
                 "summary": summary,
                 "warnings": [] if self.result is None
@@ -70,14 +71,21 @@ class Job:
     inputs: dict
     case: object = None
     refused: str = ""
+    #: the point's status when there is no case: "refused" (the inputs broke a rule) or
+    #: "failed" (building the case raised something else: a fault in Ebullio, not the user's)
+    status: str = REFUSED
 
     @classmethod
     def build(cls, inputs: dict, make):
-        """The job for ``make()``; an input error becomes the point's reason."""
+        """The job for ``make()``; an input error becomes the point's reason, any other
+        exception a failed point that says it is a fault (never a refusal of the input)."""
         try:
             return cls(inputs, make())
-        except (InputError, KeyError, ValueError) as exc:
+        except InputError as exc:
             return cls(inputs, None, _first_line(exc))
+        except Exception as exc:  # noqa: BLE001 - one point's fault must not end the study
+            return cls(inputs, None, f"a fault in Ebullio, not in the input: "
+                       f"{type(exc).__name__}: {_first_line(exc)}", "failed")
 
 
 def _first_line(exc) -> str:
@@ -168,7 +176,7 @@ def rate_points(jobs, *, executor: cf.Executor | None = None, increments=None,
 
     for i, job in enumerate(jobs):
         if job.case is None:
-            points[i] = Point(job.inputs, REFUSED, job.refused, None, i)
+            points[i] = Point(job.inputs, job.status, job.refused, None, i)
             done += 1
     report()
     todo = [i for i, p in enumerate(points) if p is None]
