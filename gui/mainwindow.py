@@ -931,7 +931,8 @@ class MainWindow(QMainWindow):
     def zoom_plots(self):
         panel = self.tabs.currentWidget()
         panel = panel if hasattr(panel, "open_window") else self.along
-        return panel.open_window()
+        self.zoom_dialog = panel.open_window()
+        return self.zoom_dialog
 
     def save_plots(self):
         path, _ = QFileDialog.getSaveFileName(self, "Save plots", str(Path.home() / "profiles.png"),

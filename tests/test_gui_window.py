@@ -357,3 +357,24 @@ def test_the_plots_are_drawn_off_the_gui_thread_and_a_hidden_panel_waits(window,
     assert drawn_on == [] and not w.along.settled()
     plotted(qtbot, w)                            # shown again: drawn with the new result
     assert drawn_on and threading.main_thread().ident not in drawn_on
+
+
+def test_zoom_and_pan_opens_the_same_plots_on_an_interactive_canvas(window, qtbot):
+    """F9 (View > Zoom and pan the plots…) shows the plots on matplotlib's own Qt canvas with
+    its navigation toolbar; the lines are those of the window's panels."""
+    from matplotlib.backends.backend_qtagg import FigureCanvasQTAgg, NavigationToolbar2QT
+
+    w = window
+    open_rated(qtbot, w)
+    plotted(qtbot, w)
+    action = next(a for a in w.findChildren(type(w.a_undo)) if a.shortcut().toString() == "F9")
+    action.trigger()
+    dialog = w.zoom_dialog
+    assert dialog.isVisible()
+    assert dialog.findChild(FigureCanvasQTAgg) is not None
+    assert dialog.findChild(NavigationToolbar2QT) is not None
+    x, y = w.along.line_data("t_wall_inner_K")
+    zx, zy = dialog.findChild(FigureCanvasQTAgg).figure.axes[0].get_lines()[0].get_data()
+    np.testing.assert_array_equal(np.asarray(zx, float), x)
+    np.testing.assert_array_equal(np.asarray(zy, float), y)
+    dialog.close()
