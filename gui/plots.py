@@ -578,7 +578,10 @@ class PlotView(QWidget):
         if self._busy or not pic.isVisible():
             return                      # a hidden panel is drawn when it is shown
         ratio = pic.devicePixelRatioF()
-        scale = max(1.0, pic.font().pointSizeF() / BASE_POINTS)
+        # a larger font enlarges the plots where they have the room for it (the layout is
+        # made for about 700 x 420 pixels)
+        scale = min(max(1.0, pic.font().pointSizeF() / BASE_POINTS),
+                    max(1.0, min(pic.width() / 700, pic.height() / 420)))
         size = (max(pic.width(), 50), max(pic.height(), 50), ratio, scale)
         new_size = size if size != self._size else None
         if not self._pending and new_size is None:
