@@ -17,6 +17,8 @@ import pytest
 import rating
 from rating import catalogue
 from rating.errors import InputError
+from rating.studies.execution import PER_WORKER, window_of
+from rating.studies.sweep import MAX_POINTS
 from rating.studies import (CANCELLED, REFUSED, InlineExecutor, Measurement, Parameter,
                             Variation, applicable_methods, default_executor, envelope, fit,
                             method_spread, parse_variation, sweep)
@@ -137,14 +139,23 @@ def test_cancel_stops_queued_points(pentane):
 
 
 def test_cancel_on_a_process_pool(pentane, pool):
-    """Cancelled once the first point is back: the two workers finish what they hold
-    (at most a few points), the queued rest come back cancelled, all in their places."""
-    done = []
+    """Cancelled once the first point is back: only the window of points the pool holds
+    (PER_WORKER per worker) may still be rated, however slow this process is; the rest
+    come back cancelled, all in their places."""
+    done, seen = [], []
+
+    def cancel():
+        if done and done[-1] >= 1:
+            seen.append(done[-1])         # points back when the cancel was first seen
+            return True
+        return False
+
     s = sweep(pentane, [LENGTHS], executor=pool, progress=lambda n, total: done.append(n),
-              cancel=lambda: done[-1] >= 1 if done else False)
+              cancel=cancel)
     assert [p.inputs["tubes.length"] for p in s.points] == list(LENGTHS.values)
     rated = [p for p in s.points if p.rated]
-    assert 1 <= len(rated) <= 8
+    assert window_of(pool) == PER_WORKER * 2
+    assert 1 <= len(rated) <= seen[0] + window_of(pool)
     assert sum(p.status == CANCELLED for p in s.points) == 20 - len(rated)
     serial = sweep(pentane, [Variation("tubes.length", (rated[0].inputs["tubes.length"],))],
                    executor=InlineExecutor())
@@ -458,3 +469,85 @@ def test_a_point_as_data_reads_the_summary_without_serialising_the_profiles(pent
     assert data["summary"] == {"duty_W": point.result.summary["duty_W"],
                                "exit_quality": point.result.summary["exit_quality"]}
     assert set(point.to_dict()["summary"]) == set(point.result.summary)
+
+
+# --- bounds on a study -------------------------------------------------------------------
+
+def test_a_cancel_stops_every_point_but_the_window():
+    """However the threads are scheduled, no point is submitted after the cancel is seen,
+    and before it no more than the window are unfinished: all 20 were submitted at once
+    before (a pool's queued points could not be taken back)."""
+    import concurrent.futures as cf
+
+    from rating.studies import Job, rate_points
+
+    submitted = []
+
+    class Counting(cf.ThreadPoolExecutor):
+        def submit(self, fn, /, *args, **kwargs):
+            submitted.append(args)
+            return super().submit(fn, *args, **kwargs)
+
+    case = rating.load_project(SAMPLES / "pentane-vaporiser.ebullio").case(
+        "C5 vaporiser V-12 performance")
+    jobs = [Job({"n": n}, case) for n in range(20)]
+    done, seen = [], []
+
+    def cancel():
+        if done and done[-1] >= 1:
+            seen.append(len(submitted))
+            return True
+        return False
+
+    with Counting(2) as threads:
+        points = rate_points(jobs, executor=threads, cancel=cancel,
+                             progress=lambda n, total: done.append(n))
+        assert window_of(threads) == 2 * PER_WORKER
+    assert len(submitted) == seen[0] <= done[-1] + 2 * PER_WORKER
+    rated = [p for p in points if p.rated]
+    assert 1 <= len(rated) <= len(submitted) < 20
+    assert [p.status for p in points].count(CANCELLED) == 20 - len(rated)
+
+
+def test_the_window_of_an_executor():
+    class Unknown:
+        pass
+
+    class Client:
+        def nthreads(self):
+            return {"tcp://a:1": 4, "tcp://b:1": 8}
+
+    class DaskLike:                  # distributed's ClientExecutor keeps its client here
+        _client = Client()
+
+    assert window_of(Unknown()) == 32
+    assert window_of(DaskLike()) == PER_WORKER * 12
+
+
+def test_a_sweep_larger_than_the_limit_is_refused_before_any_point_is_built(pentane,
+                                                                            monkeypatch):
+    built = []
+    monkeypatch.setattr(catalogue, "draft_to_case", lambda d: built.append(d))
+    big = [parse_variation("tubes.length=1:4:101"), parse_variation("heating.pressure=2e5:4e5:100")]
+    with pytest.raises(InputError, match=f"101 x 100 = 10,100 points: a study rates at most "
+                       f"{MAX_POINTS:,}"):
+        sweep(pentane, big, executor=InlineExecutor(), cancel=lambda: True)
+    with pytest.raises(InputError, match="at most 10,000"):
+        envelope(pentane, *big, executor=InlineExecutor(), cancel=lambda: True)
+    assert built == []
+
+
+def test_a_two_input_point_is_built_and_validated_once(pentane, monkeypatch):
+    """Both values are set on one draft and the case validated once: two validations a
+    point before. Sweep points keep their summaries, not their profiles."""
+    calls = []
+    real = catalogue.draft_to_case
+    monkeypatch.setattr(catalogue, "draft_to_case", lambda d: calls.append(1) or real(d))
+    s = sweep(pentane, [Variation("tubes.length", (2.0, 3.0)),
+                        Variation("heating.pressure", (2.5e5, 3e5, 3.5e5))],
+              executor=InlineExecutor())
+    assert len(calls) == 6 and all(p.rated for p in s.points)
+    assert all(p.result.profiles == {} for p in s.points)
+    alone = rating.rate(catalogue.with_value(catalogue.with_value(pentane, "tubes.length", 3.0),
+                                             "heating.pressure", 3.5e5))
+    assert s.points[-1].result.summary == alone.summary and alone.profiles

@@ -14,6 +14,7 @@ import distributed
 
 import rating
 from rating.studies import InlineExecutor, parse_variation, sweep
+from rating.studies.execution import PER_WORKER, window_of
 
 SAMPLES = Path(__file__).parent.parent / "samples"
 
@@ -28,6 +29,8 @@ def test_sweep_on_a_dask_cluster_equals_serial():
             distributed.Client(cluster) as client:
         workers = list(client.scheduler_info()["workers"])
         assert len(workers) == 2
+        # two single-thread workers: PER_WORKER points each in flight at a time
+        assert window_of(client.get_executor()) == 2 * PER_WORKER
         with distributed.get_task_stream(client) as tasks:
             on_cluster = sweep(case, [lengths], executor=client.get_executor())
     ran = [t for t in tasks.data if t["key"].startswith("rate_one")]

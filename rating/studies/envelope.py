@@ -190,7 +190,7 @@ def envelope(case, x: Variation, y: Variation, *, required_duty=None, executor=N
         raise InputError(f"required duty = {required} W: must be > 0", field="required_duty")
     limits = tuple(k for k in _TYPE_LIMITS[case.type] if k != "duty" or required is not None)
     points = rate_points(jobs_for(case, (x, y)), executor=executor, increments=increments,
-                         progress=progress, cancel=cancel)
+                         progress=progress, cancel=cancel, profiles=False)
     shape = (len(x.values), len(y.values))
     within = {k: np.full(shape, None, dtype=object) for k in limits}
     margin = {k: np.full(shape, math.nan) for k in limits}

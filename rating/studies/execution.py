@@ -6,12 +6,14 @@ The caller may pass an executor: a ``ProcessPoolExecutor``, a thread pool, the
 distributed client's ``client.get_executor()``; with none, a process pool on all
 cores is made for the run and shut down after it. Results come back in input
 order whatever order the workers finish in; a point that cannot be built, fails
-or raises keeps its place with its reason; a cancel stops the points still queued.
+or raises keeps its place with its reason. Only a window of points (a few per worker)
+is submitted at a time, so a cancel stops every point but those few.
 """
 from __future__ import annotations
 
 import concurrent.futures as cf
 import contextlib
+import dataclasses
 import multiprocessing
 import os
 import threading
@@ -31,7 +33,8 @@ class Point:
 
     ``inputs`` maps what was set (a field path, or "method") to its value;
     ``status`` is the rating's ("ok", "warnings", "failed") or "refused" /
-    "cancelled"; ``message`` says why when it is not rated.
+    "cancelled"; ``message`` says why when it is not rated. A sweep's and an envelope's
+    points keep their results without profiles (10,000 points: their summaries only).
     """
 
     inputs: dict
@@ -93,14 +96,17 @@ def _first_line(exc) -> str:
     return text.splitlines()[0] if text else type(exc).__name__
 
 
-def rate_one(case, increments=None) -> Result:
-    """Rate one case in a worker; whatever goes wrong becomes the result's reason."""
+def rate_one(case, increments=None, profiles: bool = True) -> Result:
+    """Rate one case in a worker; whatever goes wrong becomes the result's reason.
+    Without ``profiles`` the result is sent back without them (a study point's summary
+    is what is kept)."""
     from .. import rate
 
     try:
-        return rate(case, increments=increments)
+        result = rate(case, increments=increments)
     except Exception as exc:  # noqa: BLE001 - one point's failure must not end the study
-        return failed(case, f"{type(exc).__name__}: {_first_line(exc)}")
+        result = failed(case, f"{type(exc).__name__}: {_first_line(exc)}")
+    return result if profiles else dataclasses.replace(result, profiles={})
 
 
 class InlineExecutor(cf.Executor):
@@ -156,14 +162,46 @@ def executor_scope(executor: cf.Executor | None):
         own.shutdown(wait=True, cancel_futures=True)
 
 
+#: Points kept submitted but unfinished per worker: one running and one waiting, so a
+#: worker never idles between points, and a cancel leaves at most this many per worker
+#: to finish (a process pool cannot take back a point it has already handed on).
+PER_WORKER = 2
+#: The window when the executor does not say how many workers it has.
+UNKNOWN_WORKERS_WINDOW = 32
+
+
+def window_of(executor) -> int:
+    """How many points ``rate_points`` keeps submitted but unfinished on ``executor``.
+
+    ``PER_WORKER`` per worker: a ``concurrent.futures`` pool's ``max_workers``; a Dask
+    client's executor (``client.get_executor()``) counts the cluster's threads when the
+    points start; an executor that says neither gets ``UNKNOWN_WORKERS_WINDOW``.
+    """
+    workers = getattr(executor, "_max_workers", None)
+    client = getattr(executor, "_client", None)
+    if workers is None and client is not None:
+        try:
+            workers = sum(client.nthreads().values())
+        except Exception:  # noqa: BLE001 - a client that cannot say: the default window
+            workers = None
+    if not workers:
+        return UNKNOWN_WORKERS_WINDOW
+    return PER_WORKER * int(workers)
+
+
 def rate_points(jobs, *, executor: cf.Executor | None = None, increments=None,
-                progress=None, cancel=None) -> list[Point]:
+                progress=None, cancel=None, profiles: bool = True,
+                window: int | None = None) -> list[Point]:
     """Rate every job's case; one ``Point`` per job, in the jobs' order.
 
     ``progress(done, total)`` is called in this thread as points finish;
-    ``cancel()`` is polled while waiting, and when it returns True the points not
-    yet started are cancelled and come back with status "cancelled" (points already
-    running are waited for: a worker process cannot be interrupted safely).
+    ``cancel()`` is polled while waiting. At most ``window`` points (``window_of`` the
+    executor by default) are submitted and unfinished at a time, so when ``cancel()``
+    returns True no more are submitted, those not yet started are cancelled, and at
+    most ``window`` more are rated (points already running are waited for: a worker
+    process cannot be interrupted safely); the rest come back "cancelled". Without
+    ``profiles`` the results keep no profiles (a sweep's points need only their
+    summaries: memory).
     """
     jobs = list(jobs)
     total = len(jobs)
@@ -179,9 +217,10 @@ def rate_points(jobs, *, executor: cf.Executor | None = None, increments=None,
             points[i] = Point(job.inputs, job.status, job.refused, None, i)
             done += 1
     report()
-    todo = [i for i, p in enumerate(points) if p is None]
-    if todo:
+    todo = iter([i for i, p in enumerate(points) if p is None])
+    if any(p is None for p in points):
         with executor_scope(executor) as pool:
+            size = max(1, window or window_of(pool))
             pending: dict[cf.Future, int] = {}
             stopped = False
 
@@ -194,21 +233,29 @@ def rate_points(jobs, *, executor: cf.Executor | None = None, increments=None,
                 if finished:
                     report()
 
-            for i in todo:
-                if cancel is not None and cancel():
-                    stopped = True
-                    break
-                try:
-                    future = pool.submit(rate_one, jobs[i].case, increments)
-                except Exception as exc:  # noqa: BLE001 - a broken pool or a lost cluster
-                    points[i] = Point(jobs[i].inputs, "failed",
-                                      f"not sent to a worker: {type(exc).__name__}: "
-                                      f"{_first_line(exc)}", None, i)
-                    done += 1
-                    continue
-                pending[future] = i
-                if future.done():          # an executor that runs at submission
-                    collect([future])
+            def fill():
+                """Submit points until the window is full; False once cancelled."""
+                nonlocal done
+                while len(pending) < size:
+                    if cancel is not None and cancel():
+                        return False
+                    i = next(todo, None)
+                    if i is None:
+                        return True
+                    try:
+                        future = pool.submit(rate_one, jobs[i].case, increments, profiles)
+                    except Exception as exc:  # noqa: BLE001 - a broken pool or a lost cluster
+                        points[i] = Point(jobs[i].inputs, "failed",
+                                          f"not sent to a worker: {type(exc).__name__}: "
+                                          f"{_first_line(exc)}", None, i)
+                        done += 1
+                        continue
+                    pending[future] = i
+                    if future.done():          # an executor that runs at submission
+                        collect([future])
+                return True
+
+            stopped = not fill()
             while pending:
                 if not stopped and cancel is not None and cancel():
                     stopped = True
@@ -218,6 +265,8 @@ def rate_points(jobs, *, executor: cf.Executor | None = None, increments=None,
                 finished, _ = cf.wait(list(pending), timeout=0.2,
                                       return_when=cf.FIRST_COMPLETED)
                 collect(finished)
+                if not stopped:
+                    stopped = not fill()
     for i, p in enumerate(points):
         if p is None:
             points[i] = Point(jobs[i].inputs, CANCELLED, "cancelled before it was rated",
@@ -237,5 +286,5 @@ def _point(job: Job, future: cf.Future, index: int) -> Point:
     return Point(job.inputs, result.status, message, result, index)
 
 
-__all__ = ["CANCELLED", "REFUSED", "InlineExecutor", "Job", "Point", "default_executor",
-           "executor_scope", "rate_one", "rate_points"]
+__all__ = ["CANCELLED", "PER_WORKER", "REFUSED", "InlineExecutor", "Job", "Point",
+           "default_executor", "executor_scope", "rate_one", "rate_points", "window_of"]

@@ -16,6 +16,13 @@ from ..errors import InputError
 from .execution import Job, Point, rate_points
 
 
+#: The most points one sweep or envelope rates. A 100 x 100 map is finer than any plot or
+#: table of it is read, and it is already long: at 0.02 to 0.1 s a rating (the samples) it
+#: takes minutes of CPU and keeps 10,000 summaries; two 1,000-value variations would be
+#: a million ratings (hours) held in memory, a mistyped count rather than a study.
+MAX_POINTS = 10_000
+
+
 @dataclass(frozen=True)
 class Variation:
     """One varied input: a catalogue field path and its values (SI)."""
@@ -79,6 +86,11 @@ def check_variations(case, variations) -> None:
             raise InputError(f"{v.path}: give at least one finite value", field=v.path)
     if len({v.path for v in variations}) != len(variations):
         raise InputError(f"{variations[0].path}: the same input is varied twice")
+    total = math.prod(len(v.values) for v in variations)
+    if total > MAX_POINTS:
+        raise InputError(f"{' x '.join(str(len(v.values)) for v in variations)} = {total:,} "
+                         f"points: a study rates at most {MAX_POINTS:,}; give fewer values",
+                         field=variations[-1].path)
 
 
 def _typed(path: str, value: float):
@@ -87,10 +99,14 @@ def _typed(path: str, value: float):
 
 
 def case_at(case, inputs: dict):
-    """The case with every input of ``inputs`` (path -> SI value) set, validated."""
+    """The case with every input of ``inputs`` (path -> SI value) set on one draft and
+    validated once (two inputs that only make sense together, such as both tube
+    diameters, are judged together)."""
+    draft = catalogue.case_to_draft(case)
     for path, value in inputs.items():
-        case = catalogue.with_value(case, path, _typed(path, value))
-    return case
+        catalogue.input_field(path)
+        draft = catalogue.set_value(draft, path, _typed(path, value))
+    return catalogue.draft_to_case(draft)
 
 
 def jobs_for(case, variations) -> list[Job]:
@@ -146,5 +162,5 @@ def sweep(case, variations, *, executor=None, increments=None, progress=None,
     variations = tuple(variations)
     check_variations(case, variations)
     points = rate_points(jobs_for(case, variations), executor=executor, increments=increments,
-                         progress=progress, cancel=cancel)
+                         progress=progress, cancel=cancel, profiles=False)
     return Sweep(case.name, case.type, variations, tuple(points))
