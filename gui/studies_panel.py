@@ -368,7 +368,8 @@ class StudiesPanel(QWidget):
         def work():
             try:
                 study = job(executor=executor, cancel=cancel.is_set,
-                            progress=lambda done, total: signals.progress.emit(done, total))
+                            progress=lambda done, total: signals.progress.emit(done,
+                                                                               total or 0))
                 signals.finished.emit((kind, study), None)
             except InputError as exc:
                 signals.finished.emit(None, _short(exc))
@@ -392,7 +393,7 @@ class StudiesPanel(QWidget):
 
             def job(executor, cancel, progress):
                 return studies.fit(case, measured, fitted, executor=executor, cancel=cancel,
-                                   progress=lambda n: progress(n, 0))   # no total known
+                                   progress=progress)   # total None: not known
             return job
         x, y = self.env_x.variation(), self.env_y.variation()
         text = self.required.text().strip().replace(",", "")
@@ -411,7 +412,7 @@ class StudiesPanel(QWidget):
         return self._thread is not None
 
     def _on_progress(self, done, total):
-        if total == 0:     # a fit: the number of ratings it needs is not known beforehand
+        if total == 0:     # a fit (total None): the number of ratings is not known beforehand
             self.progress.setMaximum(0)
             self.note.setText(f"fitting… {done} ratings so far")
             return

@@ -551,3 +551,51 @@ def test_a_two_input_point_is_built_and_validated_once(pentane, monkeypatch):
     alone = rating.rate(catalogue.with_value(catalogue.with_value(pentane, "tubes.length", 3.0),
                                              "heating.pressure", 3.5e5))
     assert s.points[-1].result.summary == alone.summary and alone.profiles
+
+
+# --- the fit's scan, progress and cancel -------------------------------------------------
+
+def test_fit_progress_is_done_and_an_unknown_total(chiller, plant):
+    """DEVELOPERS.md's contract for every study: progress(done, total); a fit does not
+    know its total (None) and its count only rises."""
+    calls = []
+    result = fit(chiller, [Measurement("heating_outlet_temperature_K",
+                                       plant.summary["heating_outlet_temperature_K"], 0.1)],
+                 [Parameter("boiling.fouling_resistance", 0.0, 2e-3)], executor=InlineExecutor(),
+                 progress=lambda done, total: calls.append((done, total)))
+    assert result.status == "fitted"
+    assert calls and all(total is None for _, total in calls)
+    assert [d for d, _ in calls] == sorted(d for d, _ in calls)
+    assert calls[-1][0] == result.ratings
+
+
+def test_a_refused_scan_point_does_not_discard_the_scan(chiller, plant):
+    """The range reaches below zero, where a fouling resistance is refused, and the fit
+    starts there: the scan's four points inside the range still give the start (before,
+    one refused scan point threw the scan away and the fit failed at its refused start)."""
+    result = fit(chiller, [Measurement("heating_outlet_temperature_K",
+                                       plant.summary["heating_outlet_temperature_K"], 0.1)],
+                 [Parameter("boiling.fouling_resistance", -5e-4, 2e-3, start=-5e-4)],
+                 executor=InlineExecutor())
+    assert result.status == "fitted", result.message
+    assert result.values["boiling.fouling_resistance"] == pytest.approx(TRUE_FOULING, abs=1e-6)
+
+
+def test_a_cancel_is_reported_as_cancelled_even_beside_a_failed_point(chiller, monkeypatch):
+    """The pool hands back a failed point before the cancelled ones: the fit was stopped
+    by the user, and says so, not that a rating failed."""
+    from rating.studies import Point
+    import importlib
+
+    fit_module = importlib.import_module("rating.studies.fit")   # the package's fit is the function
+
+    def stopped(jobs, **kw):
+        return [Point(j.inputs, "failed", "dryout at the inlet", None, 0) if n == 0 else
+                Point(j.inputs, CANCELLED, "cancelled before it was rated", None, n)
+                for n, j in enumerate(jobs)]
+
+    monkeypatch.setattr(fit_module, "rate_points", stopped)
+    result = fit(chiller, [Measurement("duty_W", 4e4, 1e3)],
+                 [Parameter("boiling.fouling_resistance", 0.0, 2e-3)], executor=InlineExecutor(),
+                 cancel=lambda: True)
+    assert result.status == "cancelled", result.message

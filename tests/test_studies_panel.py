@@ -192,10 +192,14 @@ def test_fit_in_the_tab_recovers_a_known_fouling(qtbot, chiller, plant, tmp_path
     value, tolerance = setup.measure("heating_outlet_temperature_K")
     type_into(qtbot, value, repr(measured))
     type_into(qtbot, tolerance, "0.1")
+    seen = []
+    panel.signals.progress.connect(lambda done, total: seen.append((done, total)))
     run_by_button(qtbot, panel)
     assert panel.study.status == "fitted"
     assert panel.study.values["boiling.fouling_resistance"] == pytest.approx(TRUE_FOULING,
                                                                              abs=1e-6)
+    # the engine's progress(done, None) reaches the bar as "total not known" (0)
+    assert seen and {t for _, t in seen} == {0} and seen[-1][0] == panel.study.ratings
     # what the engineer reads: the table's fitted row and the verdict above the plot
     row = [panel.table.item(0, c).text() for c in range(panel.table.columnCount())]
     assert row[0].startswith("Fouling resistance, boiling side")

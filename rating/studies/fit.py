@@ -123,7 +123,10 @@ def _check(case, measurements, parameters):
 
 def fit(case, measurements, parameters, *, executor=None, increments=None, cancel=None,
         progress=None) -> Fit:
-    """Fit ``parameters`` of ``case`` to ``measurements`` (see the module's notes)."""
+    """Fit ``parameters`` of ``case`` to ``measurements`` (see the module's notes).
+
+    ``progress(done, None)``: ratings made so far, of a number not known beforehand.
+    ``cancel()`` stops the fit with status "cancelled"."""
     measurements, parameters = tuple(measurements), tuple(parameters)
     _check(case, measurements, parameters)
     lo = np.array([p.lower for p in parameters])
@@ -137,7 +140,10 @@ def fit(case, measurements, parameters, *, executor=None, increments=None, cance
     def values_at(u) -> dict:
         return {p: float(v) for p, v in zip(paths, lo + span * np.clip(u, 0.0, 1.0))}
 
-    def rate_many(us, pool):
+    def rate_many(us, pool, skip_failed=False):
+        """The normalised residuals at each of ``us``; a point whose measured results were
+        not computed stops the fit (``_Stop``), or is None with ``skip_failed``. A cancel
+        stops it whatever else failed beside it."""
         new = [tuple(u) for u in us if tuple(u) not in rated]
         jobs = [Job.build(values_at(u), lambda u=u: case_at(case, values_at(u))) for u in new]
         for u, point in zip(new, rate_points(jobs, executor=pool, increments=increments,
@@ -145,12 +151,18 @@ def fit(case, measurements, parameters, *, executor=None, increments=None, cance
             rated[u] = point
         count[0] += len(new)
         if progress is not None:
-            progress(count[0])
+            progress(count[0], None)       # the number of ratings is not known beforehand
+        for u in new:
+            if rated[u].status == CANCELLED:
+                raise _Stop(rated[u], values_at(u))
         out = []
         for u in us:
             point = rated[tuple(u)]
             model = [point.value(m.key) for m in measurements]
             if any(v is None for v in model):
+                if skip_failed:
+                    out.append(None)
+                    continue
                 raise _Stop(point, values_at(u))
             out.append((np.array(model, dtype=float) - target) / tol)
         return out
@@ -200,9 +212,10 @@ def _best_start(start, rate_many, pool):
     grid = [np.array(u, dtype=float)
             for u in itertools.product(np.linspace(0.0, 1.0, SCAN), repeat=len(start))]
     tries = [start] + grid
-    try:
-        misfits = [float(r @ r) for r in rate_many(tries, pool)]
-    except _Stop:          # a scan point that fails is no start; keep the case's own
+    # A scan point that fails (or is refused) is no start; the others still are.
+    misfits = [math.inf if r is None else float(r @ r)
+               for r in rate_many(tries, pool, skip_failed=True)]
+    if not any(math.isfinite(m) for m in misfits):
         return start
     return tries[int(np.argmin(misfits))]
 
