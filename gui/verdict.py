@@ -46,7 +46,10 @@ def verdict(result, system: str, *, message: str = "") -> str:
         parts.append(f"circulation ratio {circ:.3g}")
     chf = s.get("max_chf_ratio")
     if chf is not None and dry is None:
-        parts.append(f"heat flux at most {chf * 100:.0f} % of the critical flux")
+        # a kettle's limit is on the bundle's mean flux (Palen), a tube's on the local flux
+        parts.append(f"mean bundle flux {chf * 100:.0f} % of the bundle maximum"
+                     if result.type == "kettle" else
+                     f"heat flux at most {chf * 100:.0f} % of the critical flux")
     serious = [w for w in result.warnings if w.severity in ("warning", "error")]
     if serious:
         placed = [w.z_m for w in serious if w.z_m is not None]

@@ -60,3 +60,29 @@ def test_why_a_rating_failed_reads_in_the_window_units():
     us = verdict(r, "US")
     assert us.startswith("Not rated: will not circulate") and " psi " in us and " ft " in us
     assert not re.search(r"\d Pa\b|\d m\b|kg/s", us)
+
+
+def test_a_kettles_margin_is_named_as_the_bundle_limit_it_is():
+    # max_chf_ratio of a kettle is the bundle's mean flux over the bundle maximum flux
+    # (Palen's limit is on the mean): the sentence must not call it a local critical flux.
+    kettle = Result("E-21", "kettle", "ok", "rated", summary={"duty_W": 4.44e6,
+                                                               "max_chf_ratio": 0.7527})
+    tube = Result("E-1", "evaporator", "ok", "rated", summary={"duty_W": 4.44e6,
+                                                                "max_chf_ratio": 0.7527})
+    assert "mean bundle flux 75 % of the bundle maximum" in verdict(kettle, "SI")
+    assert "heat flux at most 75 % of the critical flux" in verdict(tube, "SI")
+
+
+def test_a_kettle_report_shades_its_pool_boiling_in_the_windows_tint():
+    from pathlib import Path
+
+    from gui.report import figures
+    from gui.style import REGIME_FILL
+    from rating import load_project, rate
+
+    case = load_project(Path(__file__).parent.parent / "samples"
+                        / "harrow-creek-kettles.ebullio").cases[0]
+    handles = figures._regime_handles(rate(case))
+    assert [h.get_label() for h in handles] == ["pool boiling"]
+    from matplotlib.colors import to_hex
+    assert to_hex(handles[0].get_facecolor()) == REGIME_FILL["pool boiling"]

@@ -17,17 +17,14 @@ from matplotlib.figure import Figure
 from matplotlib.patches import Circle, Patch
 
 from rating.catalogue import PROFILES, SUMMARY
+from gui.style import OKABE_ITO, REGIME_FILL as REGIME_COLOURS
 from gui.units import to_display, unit_label
 
-# Okabe-Ito colours.
+# The window's colours (gui.style), so that a report's plot reads like the window's:
+# the Okabe-Ito palette, and the same tint for each regime (a kettle's pool boiling too).
 BLACK, ORANGE, SKY, GREEN, YELLOW, BLUE, VERMILLION, PURPLE = (
-    "#000000", "#E69F00", "#56B4E9", "#009E73", "#F0E442", "#0072B2", "#D55E00", "#CC79A7")
-
-#: Light band of each regime along the tube.
-REGIME_COLOURS = {
-    "subcooled liquid": "#d6ecfa", "subcooled boiling": "#d2f0e6",
-    "saturated boiling": "#fbf6c9", "post-dryout": "#f8d9c7", "superheated vapour": "#f1dcea",
-}
+    OKABE_ITO[c] for c in ("black", "orange", "sky", "green", "yellow", "blue", "vermillion",
+                           "purple"))
 
 WIDTH_IN = 7.0          # the text width of an A4 page with 15 mm margins, about 180 mm
 DPI = 150               # about 150 dpi at the printed width: sharp, and quick to draw
