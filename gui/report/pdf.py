@@ -179,7 +179,7 @@ def write_pdf(report, path, header_date: str) -> int:
 
     doc = document(report)
     pages = doc.pageCount()
-    sections = section_pages(doc, report.case_names + ["Provenance"])
+    sections = section_pages(doc, report.case_names)   # its last name is "Provenance"
     writer = QPdfWriter(str(path))
     writer.setResolution(300)
     writer.setPageLayout(QPageLayout(QPageSize(QPageSize.PageSizeId.A4),
