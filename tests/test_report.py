@@ -228,3 +228,34 @@ def test_write_report_rates_when_given_no_results(tmp_path):
     assert case.name in text and "No vendor figures on this case" in text
     with pytest.raises(ValueError, match="SI, metric, US"):
         write_report(project, [case], tmp_path / "x.pdf", "imperial")
+
+
+def test_a_report_never_replaces_a_file_it_did_not_write(rated, tmp_path, capsys):
+    """A file named like a profile table (<stem>.1-<case>.csv) that a report did not write
+    stops the report before anything is written, naming it; the file keeps its bytes. A
+    table a report wrote is rewritten with the report; a file the caller agreed to
+    replace (the desktop asks) is replaced."""
+    from gui.report import write_report
+    from gui.report.command import main
+    from gui.report.writer import profile_csv_paths
+
+    project, cases, results, source = rated
+    out = tmp_path / "r.html"
+    (table,) = profile_csv_paths(out, results)
+    table.write_text("my own readings\n1,2,3\n", encoding="utf-8")
+    with pytest.raises(FileExistsError, match=re.escape(table.name)):
+        write_report(project, cases, out, "SI", source, results=results)
+    assert not out.exists() and table.read_text(encoding="utf-8") == "my own readings\n1,2,3\n"
+
+    code = main([str(PENTANE), "--report", str(out), "--increments", "12"])
+    err = capsys.readouterr().err
+    assert code == 2 and len(err.strip().splitlines()) == 1 and table.name in err
+    assert "did not write" in err and "Traceback" not in err
+    assert table.read_text(encoding="utf-8") == "my own readings\n1,2,3\n"
+
+    written = write_report(project, cases, out, "SI", source, results=results,
+                           replace=[table])
+    assert table in written and "qualified engineer" in table.read_text(encoding="utf-8")
+    # written again over its own table, without asking
+    assert table in write_report(project, cases, out, "US", source, results=results)
+    assert "[ft]" in table.read_text(encoding="utf-8")

@@ -83,3 +83,38 @@ def test_a_report_with_a_method_spread_is_written_from_the_window(window, qtbot,
     text = target.read_text(encoding="utf-8")
     assert "Spread between methods: void fraction" in text
     assert text.count("(the case's)") == 1
+
+
+def test_the_window_asks_before_a_profile_table_replaces_a_file(window, qtbot, tmp_path,
+                                                                 monkeypatch):
+    """A file beside the report named like its profile table, not written by a report:
+    the window names it and asks; "No" writes nothing and keeps the file, "Yes" writes
+    the report and its table."""
+    from PySide6.QtWidgets import QFileDialog, QMessageBox
+
+    w = window
+    st = open_rated(qtbot, w)
+    target = tmp_path / "asked.pdf"
+    from gui.report.writer import profile_csv_paths
+
+    (table,) = profile_csv_paths(target, [st.result])
+    table.write_text("field log\n", encoding="utf-8")
+    monkeypatch.setattr(QFileDialog, "getSaveFileName",
+                        staticmethod(lambda *a, **k: (str(target), "PDF document (*.pdf)")))
+    asked = []
+
+    def answer(reply):
+        def question(parent, title, text, *a, **k):
+            asked.append(text)
+            return reply
+        return staticmethod(question)
+
+    monkeypatch.setattr(QMessageBox, "question", answer(QMessageBox.StandardButton.No))
+    _action(w, "report of this case").trigger()
+    assert len(asked) == 1 and table.name in asked[0]
+    assert not target.exists() and table.read_text(encoding="utf-8") == "field log\n"
+    assert not w.errors
+    monkeypatch.setattr(QMessageBox, "question", answer(QMessageBox.StandardButton.Yes))
+    _action(w, "report of this case").trigger()
+    assert len(asked) == 2 and target.exists() and not w.errors
+    assert "qualified engineer" in table.read_text(encoding="utf-8")

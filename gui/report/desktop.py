@@ -84,7 +84,7 @@ def write_from_window(window, every: bool, spread=None) -> Path | None:
 
     from rating.errors import InputError
 
-    from .writer import write_report
+    from .writer import foreign_files, profile_csv_paths, write_report
 
     entries = list(window.doc.entries) if every else [e for e in [_entry(window)] if e]
     if not entries:
@@ -102,8 +102,20 @@ def write_from_window(window, every: bool, spread=None) -> Path | None:
         project = window.doc.to_project()
         # The file's hash names the inputs only when the window shows what is saved.
         source = window.doc.path if window.doc.path and not window.doc.dirty else None
+        results = [r for _, r in pairs]
+        # The file dialog asked about the report; the profile tables beside it that would
+        # replace files a report did not write are named here, and nothing is written
+        # unless the engineer agrees.
+        others = foreign_files(profile_csv_paths(path, results))
+        if others:
+            QApplication.restoreOverrideCursor()
+            try:
+                if not _agree_to_replace(window, others):
+                    return None
+            finally:
+                QApplication.setOverrideCursor(Qt.CursorShape.WaitCursor)
         write_report(project, [c for c, _ in pairs], path, window.system, source,
-                     results=[r for _, r in pairs], spread=spread)
+                     results=results, spread=spread, replace=others)
     except (InputError, OSError, ValueError) as exc:
         show = getattr(window, "show_error", None)   # the window's own way to say it
         if show is not None:
@@ -114,6 +126,23 @@ def write_from_window(window, every: bool, spread=None) -> Path | None:
     finally:
         QApplication.restoreOverrideCursor()
     return Path(path)
+
+
+def _agree_to_replace(window, paths) -> bool:
+    """Ask before the report's profile tables replace files it did not write."""
+    from html import escape
+
+    from PySide6.QtWidgets import QMessageBox
+
+    names = "<br>".join(escape(p.name) for p in paths)   # one a line, never broken
+    answer = QMessageBox.question(
+        window, "Replace files?",
+        "<p>The report writes its profile tables beside it. These files were not written "
+        f"by a report and would be replaced:</p><p style='white-space:pre'>{names}</p>"
+        f"<p>in {escape(str(paths[0].parent))}</p><p>Replace them?</p>",
+        QMessageBox.StandardButton.Yes | QMessageBox.StandardButton.No,
+        QMessageBox.StandardButton.No)
+    return answer == QMessageBox.StandardButton.Yes
 
 
 def comparison_rows(comparison, system: str) -> list[tuple[str, ...]]:

@@ -29,6 +29,11 @@ def _cell(value, quantity: str, units: str):
     return f"{to_display(value, quantity, units):.6g}"
 
 
+def first_row() -> list[str]:
+    """The table's first row: the caution (a report recognises its own tables by it)."""
+    return [f"Caution: {CAUTION}"]   # one cell, as in ebullio-rate --csv
+
+
 def write_profiles_csv(result, path, units: str = "SI") -> Path:
     """Write the profiles of one result at ``path`` in the unit system ``units``."""
     path = Path(path)
@@ -36,7 +41,7 @@ def write_profiles_csv(result, path, units: str = "SI") -> Path:
     quantities = [PROFILES[k].quantity if k in PROFILES else "text" for k in keys]
     with open(path, "w", newline="", encoding="utf-8") as fh:
         w = csv.writer(fh)
-        w.writerow([f"Caution: {CAUTION}"])   # one cell, as in ebullio-rate --csv
+        w.writerow(first_row())
         w.writerow([header(k, units) for k in keys])
         for row in zip(*(result.profiles[k] for k in keys)):
             w.writerow([_cell(v, q, units) for v, q in zip(row, quantities)])
