@@ -9,8 +9,6 @@ catalogue.
 """
 from __future__ import annotations
 
-import math
-
 from PySide6.QtCore import QLocale, Qt, Signal
 from PySide6.QtWidgets import (QCheckBox, QComboBox, QFrame, QGridLayout, QLabel, QLineEdit,
                                QScrollArea, QSizePolicy, QToolButton, QVBoxLayout, QWidget)
@@ -29,22 +27,7 @@ def choice_text(value) -> str:
 
 
 DIGITS = 4          # significant figures shown; the stored SI value keeps every digit
-
-
-def number_text(value: float, digits: int = DIGITS) -> str:
-    """A number as the form shows it, in the user's locale: ``digits`` significant figures
-    (all of the whole part from 1000 up), no trailing zeros, an exponent below 1e-4."""
-    loc = QLocale()
-    if value == 0 or not math.isfinite(value):
-        return loc.toString(float(value), "g", digits)
-    magnitude = math.floor(math.log10(abs(value)))
-    if magnitude < -4:
-        return loc.toString(float(value), "e", digits - 1)
-    text = loc.toString(float(value), "f", max(0, digits - 1 - magnitude))
-    point = loc.decimalPoint()
-    if point in text:
-        text = text.rstrip("0").rstrip(point)
-    return text
+number_text = units.entry_text
 
 
 def format_input(value, field, system) -> str:
@@ -67,20 +50,18 @@ def exact_text(value, field, system) -> str:
 
 
 def parse_input(text: str, field, system):
-    """The SI value of an editor's text; None when empty; the text itself when not a number."""
+    """The SI value of an editor's text; None when empty; the text itself for a text field.
+    ValueError (naming the field) when a numeric field's text is not a number in the
+    user's locale (``units.parse_number``: "1,5" is never read as 15)."""
     text = text.strip()
-    if not text:
-        return None
     if field.kind not in NUMERIC:
-        return text
-    number, ok = QLocale().toDouble(text)
-    if not ok:
-        try:
-            number = float(text.replace(",", ""))
-        except ValueError:
-            return text                      # the engine's validation names the problem
-    if not math.isfinite(number):
-        return text
+        return text or None
+    try:
+        number = units.parse_number(text)
+    except ValueError as exc:
+        raise ValueError(f"{field.label}: {exc}") from None
+    if number is None:
+        return None
     if field.kind == "integer":
         return int(number) if float(number).is_integer() else number
     return units.from_display(number, field.quantity, system)
@@ -198,7 +179,13 @@ class Row:
             self.message.setVisible(False)
 
     def _typed(self, text):
-        value = parse_input(text, self.field, self.form.system)
+        path = self.field.path
+        try:
+            value = parse_input(text, self.field, self.form.system)
+            self.form.entry_problems.pop(path, None)
+        except ValueError as exc:           # kept as typed: the draft stays invalid
+            value = text.strip()
+            self.form.entry_problems[path] = (value, str(exc))
         self.form.echo[self.field.path] = value     # keep the text as typed while it is the value
         self.form.edited.emit(self.field.path, value)
 
@@ -304,6 +291,7 @@ class CaseForm(QScrollArea):
         self.case_type = case_type
         self.system = "SI"
         self.echo: dict = {}               # path -> value just typed (its text stays as typed)
+        self.entry_problems: dict = {}     # path -> (text kept in the draft, why not a number)
         self.setWidgetResizable(True)
         self.setFrameShape(QFrame.NoFrame)
         self.setHorizontalScrollBarPolicy(Qt.ScrollBarAlwaysOff)
@@ -355,9 +343,18 @@ class CaseForm(QScrollArea):
         for path, row in self.rows.items():
             if row.editor.isVisibleTo(row.section):
                 row.show_value(catalogue.get_value(draft, path), draft, system)
-        self.show_problems(catalogue.draft_problems(draft))
+        self.show_problems(catalogue.draft_problems(draft), draft)
 
-    def show_problems(self, problems):
+    def show_problems(self, problems, draft=None):
+        """Every problem beside its field; an entry that is not a number says so in the
+        form's words (the locale's decimal point) in place of the engine's."""
+        if draft is not None:
+            for path, (text, _) in list(self.entry_problems.items()):
+                if catalogue.get_value(draft, path) != text:    # replaced, or undone
+                    del self.entry_problems[path]
+        entry = self.entry_problems
+        problems = [p for p in problems if p.path not in entry] + \
+            [catalogue.Problem(path, message, "error") for path, (_, message) in entry.items()]
         by_path, general = {}, []
         for p in problems:
             row = self.rows.get(p.path)

@@ -129,17 +129,17 @@ def _studies(app, window, entry_id, shot) -> None:
             if value is not None:
                 q = "temperature" if key.endswith("_K") else "power"
                 measured, tolerance = p.fit_setup.measure(key)
-                measured.setText(units.format_number(units.to_display(value, q, p.system)))
-                tolerance.setText(units.format_number(units.to_display(tol, quantity, p.system)))
+                measured.setText(units.entry_text(units.to_display(value, q, p.system)))
+                tolerance.setText(units.entry_text(units.to_display(tol, quantity, p.system)))
 
     def envelope(p):
         """Down to a quarter of the case's first input, with the rated duty required: the
         limits' edges show."""
         p.env_x.count.setText("5")
         p.env_y.count.setText("4")
-        start = float(p.env_x.start.text().replace(",", ""))
-        p.env_x.start.setText(units.format_number(start * 0.25 / 0.7))
-        p.required.setText(units.format_number(
+        start = units.parse_number(p.env_x.start.text())
+        p.env_x.start.setText(units.entry_text(start * 0.25 / 0.7))
+        p.required.setText(units.entry_text(
             units.to_display(summary["duty_W"], "power", p.system)))
 
     setups = (("sweep", lambda p: p.vary.count.setText("8")),

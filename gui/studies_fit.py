@@ -43,9 +43,7 @@ def measurable(case) -> list[str]:
             and (k != "steam_flow_kg_s" or case.heating.kind == "steam")]
 
 
-def _number(text: str):
-    text = text.strip().replace(",", "")
-    return float(text) if text else None
+_number = units.parse_number
 
 
 class _FitRow(QWidget):
@@ -93,7 +91,7 @@ class _FitRow(QWidget):
             return
         f = catalogue.input_field(p)
         for w, v in zip((self.low, self.high), f.usual if f.usual else f.hard):
-            w.setText(units.format_number(units.to_display(v, f.quantity, self.system)))
+            w.setText(units.entry_text(units.to_display(v, f.quantity, self.system)))
         self.unit.setText(units.unit_label(f.quantity, self.system))
 
     def parameter(self):
@@ -103,10 +101,11 @@ class _FitRow(QWidget):
             return None
         f = catalogue.input_field(p)
         try:
-            lo, hi = (units.from_display(float(w.text().replace(",", "")), f.quantity,
+            lo, hi = (units.from_display(units.parse_number(w.text()), f.quantity,
                                          self.system) for w in (self.low, self.high))
-        except ValueError:
-            raise ValueError(f"{f.label}: the bounds must be numbers") from None
+        except (ValueError, TypeError) as exc:
+            raise ValueError(f"{f.label}: the bounds must be numbers"
+                             + (f" ({exc})" if isinstance(exc, ValueError) else "")) from None
         if not lo < hi:
             raise ValueError(f"{f.label}: the bound 'from' must be below 'to'")
         return studies.Parameter(p, lo, hi)
@@ -170,9 +169,9 @@ class _MeasuredRow(QWidget):
         f = catalogue.SUMMARY[k]
         try:
             value, tol = _number(self.value.text()), _number(self.tolerance.text())
-        except ValueError:
+        except ValueError as exc:
             raise ValueError(f"{f.label}: the measured value and its tolerance must be "
-                             "numbers") from None
+                             f"numbers ({exc})") from None
         if value is None:
             if tol is not None:
                 raise ValueError(f"{f.label}: a tolerance without a measured value")

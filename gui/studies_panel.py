@@ -110,8 +110,8 @@ class _Range(QWidget):
             if f.hard and f.hard[1] is not None:
                 hi = min(hi, f.hard[1])
         self.unit.setText(units.unit_label(f.quantity, self.system))
-        self.start.setText(units.format_number(units.to_display(lo, f.quantity, self.system)))
-        self.stop.setText(units.format_number(units.to_display(hi, f.quantity, self.system)))
+        self.start.setText(units.entry_text(units.to_display(lo, f.quantity, self.system)))
+        self.stop.setText(units.entry_text(units.to_display(hi, f.quantity, self.system)))
         self.count.setText("5" if self.optional else "11")
 
     def variation(self):
@@ -121,12 +121,13 @@ class _Range(QWidget):
             return None
         f = catalogue.input_field(p)
         try:
-            lo, hi = (units.from_display(float(w.text().replace(",", "")), f.quantity, self.system)
+            lo, hi = (units.from_display(units.parse_number(w.text()), f.quantity, self.system)
                       for w in (self.start, self.stop))
             n = int(self.count.text())
-        except ValueError:
+        except (ValueError, TypeError) as exc:
             raise ValueError(f"{f.label}: from and to must be numbers and points a whole "
-                             "number") from None
+                             "number" + (f" ({exc})" if isinstance(exc, ValueError) else "")
+                             ) from None
         return studies.Variation.range(p, lo, hi, n)
 
 
@@ -396,11 +397,12 @@ class StudiesPanel(QWidget):
                                    progress=progress)   # total None: not known
             return job
         x, y = self.env_x.variation(), self.env_y.variation()
-        text = self.required.text().strip().replace(",", "")
         try:
-            required = units.from_display(float(text), "power", self.system) if text else None
-        except ValueError:
-            raise ValueError("Required duty: a number, or empty for the case's own") from None
+            number = units.parse_number(self.required.text())
+        except ValueError as exc:
+            raise ValueError(f"Required duty: a number, or empty for the case's own ({exc})"
+                             ) from None
+        required = None if number is None else units.from_display(number, "power", self.system)
         return lambda **kw: studies.envelope(case, x, y, required_duty=required, **kw)
 
     def stop(self):

@@ -131,3 +131,47 @@ def format_number(value, digits: int = 4) -> str:
         return f"{value:.{digits - 1}e}"
     decimals = max(0, digits - 1 - magnitude)
     return f"{value:,.{decimals}f}"
+
+
+def parse_number(text: str):
+    """The number typed into an entry, read in the user's locale (QLocale): None when the
+    entry is empty. Never a guess: a text that is not a number in that locale (a decimal
+    comma where the point is ".", thousands grouped wrongly, letters) raises ValueError
+    saying why, for the entry to show beside its field. Every numeric entry of the
+    desktop reads its text here."""
+    from PySide6.QtCore import QLocale
+
+    text = text.strip()
+    if not text:
+        return None
+    loc = QLocale()
+    number, ok = loc.toDouble(text)
+    if ok and math.isfinite(number):
+        return number
+    point, group = loc.decimalPoint(), loc.groupSeparator()
+    other = "," if point == "." else "." if point == "," else ""
+    if other and other in text and other != group:
+        raise ValueError(f"'{text}' is not a number: the decimal point is '{point}'")
+    if other and other in text:
+        raise ValueError(f"'{text}' is not a number: the decimal point is '{point}', and "
+                         f"'{group}' only separates groups of thousands")
+    raise ValueError(f"'{text}' is not a number")
+
+
+def entry_text(value: float, digits: int = 4) -> str:
+    """A number as an entry shows it, in the user's locale, so that ``parse_number``
+    reads it back: ``digits`` significant figures (every digit of the whole part from
+    1000 up), no trailing zeros, an exponent below 1e-4."""
+    from PySide6.QtCore import QLocale
+
+    loc = QLocale()
+    if value == 0 or not math.isfinite(value):
+        return loc.toString(float(value), "g", digits)
+    magnitude = math.floor(math.log10(abs(value)))
+    if magnitude < -4 or magnitude >= 15:
+        return loc.toString(float(value), "e", digits - 1)
+    text = loc.toString(float(value), "f", max(0, digits - 1 - magnitude))
+    point = loc.decimalPoint()
+    if point in text:
+        text = text.rstrip("0").rstrip(point)
+    return text
