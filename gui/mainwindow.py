@@ -894,14 +894,35 @@ class MainWindow(QMainWindow):
             return self.save_as()
         return self._save_to(self.doc.path)
 
-    def save_as(self) -> bool:
+    def save_dialog(self) -> QFileDialog:
+        """The Save As dialog: it adds ".ebullio" itself, before it asks about replacing a
+        file, so "plant" asks about plant.ebullio."""
         start = str(self.doc.path or (Path.home() / "project.ebullio"))
-        path, _ = QFileDialog.getSaveFileName(self, "Save project as", start, FILE_FILTER)
+        dialog = QFileDialog(self, "Save project as", start, FILE_FILTER)
+        dialog.setAcceptMode(QFileDialog.AcceptSave)
+        dialog.setFileMode(QFileDialog.AnyFile)
+        dialog.setDefaultSuffix("ebullio")
+        return dialog
+
+    def ask_save_path(self) -> str:
+        dialog = self.save_dialog()
+        return dialog.selectedFiles()[0] if dialog.exec() and dialog.selectedFiles() else ""
+
+    def confirm_replace(self, path: Path) -> bool:
+        return QMessageBox.question(
+            self, "Replace a file", f"{path.name} exists already in {path.parent}. Replace it?",
+            QMessageBox.Yes | QMessageBox.Cancel, QMessageBox.Cancel) == QMessageBox.Yes
+
+    def save_as(self) -> bool:
+        path = self.ask_save_path()
         if not path:
             return False
-        if not path.endswith(".ebullio"):
-            path += ".ebullio"
-        return self._save_to(Path(path))
+        path = Path(path)
+        if path.suffix != ".ebullio":       # a dialog that returned the bare name: its
+            path = path.with_name(path.name + ".ebullio")   # check was not on this file
+            if path.exists() and not self.confirm_replace(path):
+                return False
+        return self._save_to(path)
 
     def _save_to(self, path) -> bool:
         import rating
