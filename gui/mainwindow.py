@@ -128,7 +128,8 @@ class MainWindow(QMainWindow):
         self.setObjectName("ebullio-main")
         self.doc = Document(self)
         self.runner = Runner(self.doc, self)
-        self.session = f"{os.getpid()}-{id(self):x}"
+        self.session = f"{os.getpid()}-{id(self):x}-{os.urandom(4).hex()}"
+        files.live_sessions.add(self.session)
         self.autosave_file: Path | None = None
         self.current_id: int | None = None
         self.compare_with = ""          # "" nothing, "previous", or an entry id as text
@@ -973,7 +974,7 @@ class MainWindow(QMainWindow):
         if self.autosave_file is None:
             self.autosave_file = files.autosave_path(self.doc.path, self.session)
         try:
-            files.write_autosave(self.autosave_file, self.doc.path, self.doc)
+            files.write_autosave(self.autosave_file, self.doc.path, self.doc, self.session)
         except OSError as exc:
             self.statusBar().showMessage(f"autosave failed: {exc}", 5000)
 
@@ -996,10 +997,12 @@ class MainWindow(QMainWindow):
         project = type("Saved", (), {"title": data.get("title", ""), "notes": data.get("notes", ""),
                                      "revision": data.get("revision", 1)})()
         self._replace(project, src, drafts=data["drafts"])
-        # the recovered content differs from the file: mark it unsaved and keep the autosave
+        # the recovered content differs from the file: mark it unsaved and keep the autosave,
+        # now this session's (written at once, so no other start offers it while we run)
         self.autosave_file = path
         self.doc.undo.resetClean()
         self._update_title()
+        self.autosave_now()
         return True
 
     def ask_recover(self, what, when, n_cases) -> bool:
@@ -1081,6 +1084,7 @@ class MainWindow(QMainWindow):
             wait_for_drawing()
         self._autosave_timer.stop()
         self._drop_autosave()
+        files.live_sessions.discard(self.session)
         files.settings().setValue("geometry", self.saveGeometry())
         event.accept()
 

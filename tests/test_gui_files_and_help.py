@@ -24,12 +24,13 @@ def test_a_crash_leaves_an_autosave_that_the_next_start_offers(qtbot, scratch, t
     open_rated(qtbot, first, project)
     set_text(qtbot, first, "tubes.count", "133")
     first.autosave_now()
-    kept = files.pending_autosaves(project)
-    assert len(kept) == 1
+    assert files.pending_autosaves(project) == []       # its session runs
     # the session dies here: no close, no save; its autosave stays on disk
     first.runner.shutdown()
     first.doc.undo.setClean()
     first.autosave_file = None          # the dead session no longer owns it
+    files.live_sessions.discard(first.session)
+    assert len(files.pending_autosaves(project)) == 1
 
     second = make_window(qtbot)
     offered = []
@@ -160,3 +161,56 @@ def test_a_failed_rating_says_why_and_keeps_the_last_good_result_stale(window, q
     assert "circulate" in w.verdict.text()
     assert st.result is good and st.stale and "stale" in w.verdict.text()
     assert w.figures.value("duty_W") not in ("", "not computed")
+
+
+def test_two_windows_on_one_file_keep_their_own_autosaves(qtbot, scratch, tmp_path):
+    import shutil
+
+    from gui import files
+
+    project = tmp_path / "unit.ebullio"
+    shutil.copy(QUICK, project)
+    first, second = make_window(qtbot), make_window(qtbot)
+    for w, count in ((first, "131"), (second, "137")):
+        open_rated(qtbot, w, project)
+        set_text(qtbot, w, "tubes.count", count)
+        w.autosave_now()
+    assert first.autosave_file != second.autosave_file
+    kept = {files.read_autosave(w.autosave_file)["drafts"][0]["tubes"]["count"]
+            for w in (first, second)}
+    assert kept == {131, 137}
+    # both sessions are live: neither autosave is offered as left by a crash
+    assert files.pending_autosaves(project) == []
+    # the first window closes without saving: the second's autosave stays
+    second_file = second.autosave_file
+    first.close()
+    assert second_file.exists()
+    assert files.read_autosave(second_file)["drafts"][0]["tubes"]["count"] == 137
+    second.runner.shutdown()
+
+
+def test_an_autosave_of_a_running_process_is_offered_only_once_it_ends(qtbot, scratch, tmp_path):
+    import json
+    import shutil
+    import subprocess
+    import sys
+
+    from gui import files
+
+    project = tmp_path / "unit.ebullio"
+    shutil.copy(QUICK, project)
+    w = make_window(qtbot)
+    open_rated(qtbot, w, project)
+    set_text(qtbot, w, "tubes.count", "139")
+    w.autosave_now()
+    other = subprocess.Popen([sys.executable, "-c", "import time; time.sleep(60)"])
+    try:
+        data = json.loads(w.autosave_file.read_text(encoding="utf-8"))
+        data["pid"], data["session"] = other.pid, f"{other.pid}-elsewhere"
+        w.autosave_file.write_text(json.dumps(data), encoding="utf-8")
+        assert files.pending_autosaves(project) == []      # that session still runs
+    finally:
+        other.kill()
+        other.wait()
+    assert [p for p, _ in files.pending_autosaves(project)] == [w.autosave_file]
+    w.runner.shutdown()
