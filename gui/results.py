@@ -11,7 +11,7 @@ from PySide6.QtGui import QBrush, QColor
 from PySide6.QtWidgets import (QAbstractItemView, QHeaderView, QListWidget, QListWidgetItem,
                                QTableWidget, QTableWidgetItem)
 
-from rating import catalogue
+from rating import catalogue, rules
 
 from . import units
 from .verdict import amount
@@ -147,8 +147,8 @@ class WarningsList(QListWidget):
             self._z.append(None)
         warnings = result.warnings if result is not None else ()
         for w in sorted(warnings, key=lambda w: ("error", "warning", "info").index(w.severity)):
-            where = ""
-            if w.z_m is not None:
+            where = ""                  # the position once: after a text that does not give it
+            if w.z_m is not None and "z" not in rules.quantities(getattr(w, "template", "")):
                 where = f" [z = {amount(w.z_m, 'length', system, 3)}]"
             it = QListWidgetItem(f"{SEVERITY_MARK.get(w.severity, '')}  "
                                  f"{warning_text(w, system)}{where}")
