@@ -426,17 +426,10 @@ class MainWindow(QMainWindow):
         self._act(m, "&About Ebullio", self.show_about)
 
     def _install_report(self):
-        """The report command comes from gui.report when it is there (``add_to_window(window)``)."""
-        try:
-            from . import report
-            hook = getattr(report, "add_to_window", None)
-        except ImportError:
-            hook = None
-        if hook is not None:
-            hook(self)
-        if not self.report_menu.actions():
-            a = self.report_menu.addAction("No report writer in this version")
-            a.setEnabled(False)
+        """The Report menu's commands (gui.report; a broken install says so, loudly)."""
+        from .report import add_to_window
+
+        add_to_window(self)
 
     def _wire(self):
         self.doc.casesChanged.connect(self._show_cases)

@@ -37,3 +37,16 @@ def test_a_warning_that_names_its_position_shows_it_once(qtbot):
     assert sum(t.count("z =") for t in texts if "Chen" in t) == 1
     assert "3.727 ft" in texts[0]
     assert any("plain text [z = " in t for t in texts)
+
+
+def test_a_broken_report_package_is_not_hidden_as_no_report_writer(qtbot, scratch,  # noqa: F811
+                                                                   monkeypatch):
+    """An import error inside gui.report is a broken install: it surfaces, it does not
+    read "No report writer in this version"."""
+    import pytest
+
+    import sys
+
+    monkeypatch.setitem(sys.modules, "gui.report.desktop", None)   # as if missing
+    with pytest.raises(ImportError):
+        make_window(qtbot)
