@@ -387,9 +387,15 @@ class BalanceFigure:
                                     ("return_line", C["purple"], ":")):
             (self.parts[name],) = ax.plot([], [], style, color=colour, lw=1.2,
                                           label=f"losses, {name.replace('_', ' ')}")
+        # each crossing by the engine's own flag (Ledinegg), as the report draws them
+        (self.stable,) = ax.plot([], [], "o", mfc="#9a9a9a", mec=INK, ms=7, label="balance (stable)")
         (self.crossings,) = ax.plot([], [], "o", mfc="white", mec=INK, ms=7, label="balance (unstable)")
         (self.chosen,) = ax.plot([], [], "o", color=INK, ms=8, label="operating point")
-        (self.unsolved,) = ax.plot([], [], "x", color="#888888", ms=6, label="not solved")
+        # a circulation the loop was not solved at has no pressure difference: it is marked
+        # on the circulation axis (x in data, y on the axes' bottom edge), never at 0 Pa
+        (self.unsolved,) = ax.plot([], [], "|", color="#888888", ms=10, mew=1.5, clip_on=False,
+                                   transform=ax.get_xaxis_transform(),
+                                   label="not solved (on the axis)")
         # the note sits between the title and the plot, never on the curves
         self.note = ax.text(0.0, 1.01, "", transform=ax.transAxes, va="bottom", fontsize=FONT,
                             color="#333333")
@@ -411,11 +417,12 @@ class BalanceFigure:
             line.set_data(m, _display(parts.get(name, ()), dp, system) if name in parts else [])
         pts = curve.get("operating_points", ())
         chosen = [p for p in pts if p.get("selected")]
-        others = [p for p in pts if not p.get("selected")]
-        self.chosen.set_data(_display([p["circulation_kg_s"] for p in chosen], "mass_flow", system),
-                             _display([p["available_Pa"] for p in chosen], dp, system))
-        self.crossings.set_data(_display([p["circulation_kg_s"] for p in others], "mass_flow", system),
-                                _display([p["available_Pa"] for p in others], dp, system))
+        for line, group in ((self.chosen, chosen),
+                            (self.stable, [p for p in pts if not p.get("selected") and p.get("stable")]),
+                            (self.crossings, [p for p in pts if not p.get("selected")
+                                              and not p.get("stable")])):
+            line.set_data(_display([p["circulation_kg_s"] for p in group], "mass_flow", system),
+                          _display([p["available_Pa"] for p in group], dp, system))
         bad = curve.get("not_solved_kg_s", ())
         self.unsolved.set_data(_display(bad, "mass_flow", system), np.zeros(len(bad)))
         if chosen:
