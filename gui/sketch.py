@@ -3,8 +3,9 @@
 It reads the draft's geometry (SI) and draws it with one scale for both
 directions: the tubes and shell of an evaporator, the column, reboiler and lines of
 a thermosiphon with the column level, the end view of a kettle with its bundle,
-liquid at the weir and freeboard. A dimension that is not given yet is left out;
-the drawing never invents a number.
+liquid at the weir and freeboard. A dimension that is not given yet is left out,
+or drawn dashed and labelled "estimated" without a number where the picture needs
+it (the shell around an evaporator's bundle); the drawing never invents a number.
 """
 from __future__ import annotations
 
@@ -29,18 +30,44 @@ def _num(draft, path):
     return float(v) if isinstance(v, (int, float)) and not isinstance(v, bool) and v > 0 else None
 
 
+def kettle_drawn(draft: dict) -> dict:
+    """A kettle draft's shell with the dimensions left empty at the engine's published
+    defaults (built once per draft, not per paint); the draft as it is while unfinished."""
+    import dataclasses
+
+    from rating.case import KettleShell
+    from rating.errors import InputError
+    from rating.project import from_dict
+
+    try:
+        return {"kettle": dataclasses.asdict(from_dict(draft.get("kettle"), KettleShell))}
+    except InputError:                  # an unfinished kettle: draw what is given
+        return draft
+
+
 class UnitSketch(QWidget):
     def __init__(self, parent=None):
         super().__init__(parent)
         self.draft: dict = {}
+        self._kettle_draft: dict = {}
         self.system = "SI"
+        self.texts: list[str] = []      # the labels of the last paint (what a reader sees)
         self.setMinimumHeight(150)
         self.setSizePolicy(QSizePolicy.Expanding, QSizePolicy.Fixed)
         self.setFixedHeight(170)
 
     def show_draft(self, draft, system):
+        if draft is not self.draft and isinstance(draft, dict) and draft.get("type") == "kettle":
+            self._kettle_draft = kettle_drawn(draft)
         self.draft, self.system = draft, system
         self.update()
+
+    def _text(self, p, where, text, *flags):
+        self.texts.append(text)
+        if flags:
+            p.drawText(where, *flags, text)
+        else:
+            p.drawText(where, text)
 
     def _len(self, metres):
         return units.format_value(metres, "length", self.system, 3)
@@ -52,6 +79,7 @@ class UnitSketch(QWidget):
         f = QFont(self.font())
         f.setPointSizeF(max(7.0, f.pointSizeF() * 0.85))
         p.setFont(f)
+        self.texts = []
         kind = self.draft.get("type")
         box = QRectF(self.rect()).adjusted(8, 8, -8, -8)
         try:
@@ -61,9 +89,9 @@ class UnitSketch(QWidget):
             drawn = False
         if not drawn:
             p.setPen(QColor("#777777"))
-            p.drawText(box, Qt.AlignCenter, "the drawing follows once the geometry is given")
+            self._text(p, box, "the drawing follows once the geometry is given", Qt.AlignCenter)
         p.setPen(QColor("#777777"))
-        p.drawText(box, Qt.AlignRight | Qt.AlignBottom, "to scale")
+        self._text(p, box, "to scale", Qt.AlignRight | Qt.AlignBottom)
         p.end()
 
     # --- in-tube evaporator: a side view of the bundle in its shell
@@ -73,7 +101,10 @@ class UnitSketch(QWidget):
         if not (L and do):
             return False
         pitch = _num(d, "tubes.pitch") or 1.25 * do
-        shell = _num(d, "shell.inner_diameter") or ((n or 1) ** 0.5 * pitch * 1.1 + do)
+        given = _num(d, "shell.inner_diameter")
+        # not given: a shell round the bundle, for the picture only (dashed, no number)
+        shell = given or ((n or 1) ** 0.5 * pitch * 1.1 + do)
+        shell_text = f"shell {self._len(given)}" if given else "shell estimated"
         vertical = catalogue.get_value(d, "tubes.orientation") != "horizontal"
         long_, wide = (box.height() - 18, box.width() - 120) if vertical else (box.width() - 90, box.height() - 30)
         s = min(long_ / L, wide / shell)
@@ -82,7 +113,7 @@ class UnitSketch(QWidget):
             r = QRectF(box.center().x() - sw / 2, box.top() + 4, sw, lw)
         else:
             r = QRectF(box.left() + 40, box.center().y() - sw / 2, lw, sw)
-        p.setPen(QPen(STEEL, 1.6))
+        p.setPen(QPen(STEEL, 1.6, Qt.SolidLine if given else Qt.DashLine))
         p.setBrush(QColor("#f4f6f8"))
         p.drawRect(r)
         rows = max(1, min(9, int(shell / pitch)))
@@ -97,12 +128,12 @@ class UnitSketch(QWidget):
                 p.drawLine(QPointF(r.left(), y), QPointF(r.right(), y))
         p.setPen(INK)
         if vertical:
-            p.drawText(QPointF(r.right() + 6, r.center().y()), f"L = {self._len(L)}")
-            p.drawText(QPointF(r.right() + 6, r.center().y() + 14), f"shell {self._len(shell)}")
-            p.drawText(QPointF(box.left(), box.top() + 10), f"{int(n) if n else '?'} tubes, vertical")
+            self._text(p, QPointF(r.right() + 6, r.center().y()), f"L = {self._len(L)}")
+            self._text(p, QPointF(r.right() + 6, r.center().y() + 14), shell_text)
+            self._text(p, QPointF(box.left(), box.top() + 10), f"{int(n) if n else '?'} tubes, vertical")
         else:
-            p.drawText(QPointF(r.left(), r.bottom() + 14), f"L = {self._len(L)}, shell {self._len(shell)}, "
-                                                           f"{int(n) if n else '?'} tubes, horizontal")
+            self._text(p, QPointF(r.left(), r.bottom() + 14), f"L = {self._len(L)}, {shell_text}, "
+                                                              f"{int(n) if n else '?'} tubes, horizontal")
         return True
 
     # --- thermosiphon: column, reboiler, inlet and return lines, column level
@@ -113,7 +144,8 @@ class UnitSketch(QWidget):
         rise = _num(d, "thermosiphon.return_line_rise") or 0.0
         if not L:
             return False
-        shell = _num(d, "shell.inner_diameter") or L / 6
+        given = _num(d, "shell.inner_diameter")
+        shell = given or L / 6          # not given: the reboiler's width is drawn dashed
         top = L + rise + max(0.5, 0.25 * L)
         height = max(top, level or 0) + 0.3
         s = (box.height() - 10) / height
@@ -136,7 +168,7 @@ class UnitSketch(QWidget):
             p.drawLine(QPointF(col.left() - 12, y(level)), QPointF(reb.right() + 12, y(level)))
             labels.append((y(level) + 4, f"level {self._len(level)}"))
         # reboiler
-        p.setPen(QPen(STEEL, 1.6))
+        p.setPen(QPen(STEEL, 1.6, Qt.SolidLine if given else Qt.DashLine))
         p.setBrush(QColor("#f4f6f8"))
         p.drawRect(reb)
         p.setPen(QPen(QColor(C["blue"]), 1.0))
@@ -152,26 +184,17 @@ class UnitSketch(QWidget):
         p.drawPolyline([QPointF(reb.center().x(), reb.top()), QPointF(reb.center().x(), ret_y),
                         QPointF(col.right(), ret_y)])
         p.setPen(INK)
-        p.drawText(QPointF(col.left(), box.top() + 10), "column")
+        self._text(p, QPointF(col.left(), box.top() + 10), "column")
         labels.append((reb.center().y(), f"tubes {self._len(L)}"))
         labels.append((base_y + 4, "bottom tube sheet"))
-        _spread_labels(p, reb.right() + 16, labels, box.top() + 12, box.bottom())
+        self.texts += _spread_labels(p, reb.right() + 16, labels, box.top() + 12, box.bottom())
         p.setPen(QColor("#777777"))
         p.drawLine(QPointF(col.left() - 12, base_y), QPointF(reb.right() + 12, base_y))
         return True
 
     # --- kettle: the end view of the shell, the bundle, the liquid up to the weir
     def _kettle(self, p, box):
-        d = self.draft
-        try:  # dimensions left empty are drawn at the engine's published defaults
-            import dataclasses
-
-            from rating.case import KettleShell
-            from rating.project import from_dict
-
-            d = {"kettle": dataclasses.asdict(from_dict(d.get("kettle"), KettleShell))}
-        except Exception:  # noqa: BLE001 - an unfinished kettle: draw what is given
-            pass
+        d = self._kettle_draft            # empty dimensions at the engine's defaults
         D = _num(d, "kettle.kettle_diameter")
         port = _num(d, "kettle.port_diameter")
         bundle = _num(d, "kettle.bundle_diameter")
@@ -215,7 +238,7 @@ class UnitSketch(QWidget):
         labels.append((shell.top() + 12, f"kettle {self._len(D)}"))
         if port:
             labels.append((bottom - 2, f"port {self._len(port)}"))
-        _spread_labels(p, shell.right() + 14, labels, box.top() + 12, bottom - 2)
+        self.texts += _spread_labels(p, shell.right() + 14, labels, box.top() + 12, bottom - 2)
         return True
 
 
@@ -232,3 +255,4 @@ def _spread_labels(p, x, labels, top, bottom):
             ys[i] = min(ys[i], ys[i + 1] - step)
     for yy, (_, text) in zip(ys, labels):
         p.drawText(QPointF(x, yy), text)
+    return [text for _, text in labels]
