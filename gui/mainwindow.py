@@ -33,8 +33,7 @@ from .style import STATUS_COLOURS
 from .verdict import verdict
 from .warning_text import rules_html
 
-CAUTION = ("Results are engineering estimates, to be checked by a qualified engineer "
-           "under local codes and licensed practice.")
+from rating.caution import CAUTION, CAUTION_SHORT, SCOPE
 TYPE_TITLES = {"evaporator": "in-tube evaporator", "thermosiphon": "vertical thermosiphon",
                "kettle": "kettle reboiler"}
 SYSTEM_TITLES = {"SI": "SI", "metric": "Metric", "US": "US customary"}
@@ -268,7 +267,7 @@ class MainWindow(QMainWindow):
         split.setStretchFactor(1, 1)
         split.setSizes([190, 560])
         al.addWidget(split, 1)
-        self.caution = QLabel(CAUTION)
+        self.caution = QLabel(CAUTION_SHORT)
         self.caution.setObjectName("caution")
         self.caution.setStyleSheet("color: #555555;")
         self.caution.setWordWrap(True)
@@ -1116,9 +1115,7 @@ def files_load(path):
 
 
 def caution_text() -> str:
-    return (f"{CAUTION}\n\nEbullio rates thermal and hydraulic performance only: no mechanical design, "
-            "no relief cases. Evaporators and reboilers are pressure equipment and often handle "
-            "steam or flammable fluids.")
+    return f"{CAUTION}\n\n{SCOPE}"
 
 
 def about_text() -> str:

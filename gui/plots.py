@@ -19,6 +19,7 @@ from __future__ import annotations
 
 import math
 import sys
+import textwrap
 import threading
 import traceback
 
@@ -32,7 +33,7 @@ from PySide6.QtCore import QObject, QRunnable, QThreadPool, Qt, Signal
 from PySide6.QtGui import QImage, QPainter
 from PySide6.QtWidgets import QDialog, QSizePolicy, QVBoxLayout, QWidget
 
-from rating import catalogue
+from rating import catalogue, caution
 from rating.march import REGIMES
 
 from . import units
@@ -65,8 +66,8 @@ ALONG_TUBE = (
 FONT = 8
 DPI = 100            # figure units: one logical pixel is 1/DPI inch
 BASE_POINTS = 10.0   # a system font larger than this enlarges the plots in proportion
-CAUTION_SHORT = ("Ebullio: engineering estimates, to be checked by a qualified engineer\n"
-                 "under local codes and licensed practice")     # two lines: room beside it
+# the short caution on two lines: room beside it
+CAUTION_SHORT = textwrap.fill(caution.CAUTION_SHORT, 70)
 
 
 def _quantity(key: str) -> str:

@@ -28,9 +28,7 @@ import os
 import sys
 from pathlib import Path
 
-CAUTION = ("Results are engineering estimates. They must be checked by a qualified engineer "
-           "under local codes and licensed practice before use in the design or operation "
-           "of pressure equipment, steam systems or plant handling flammable fluids.")
+from .caution import CAUTION  # noqa: F401 - exported here too, for the callers of the CLI
 
 EXIT_RATED = 0
 EXIT_FINDINGS = 1

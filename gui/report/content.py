@@ -18,7 +18,7 @@ from pathlib import Path
 from rating import __version__ as ebullio_version
 from rating.catalogue import (GROUPS, INPUTS, SUMMARY, applies, case_to_draft, get_value,
                               method_choices, vendor_label)
-from rating.cli import CAUTION
+from rating.caution import CAUTION, SCOPE
 from rating.vendor import TOLERANCE_BASIS, compare, describe, deviation_text
 from gui.units import SYSTEM_TITLES, format_number, to_display, unit_label
 from gui.warning_text import warning_text
@@ -376,9 +376,8 @@ def build(project, cases, results, units: str, source_path=None, when=None,
     rep.add(f"<p><b>{esc(title)}</b><br/>Written {when.strftime('%Y-%m-%d %H:%M UTC')} by "
             f"Ebullio {esc(ebullio_version)}; units: {esc(SYSTEM_TITLES[units])}"
             + (f"; from {esc(Path(source_path).name)}" if source_path else "") + "</p>")
-    rep.add(Table("", [f'<td class="caution"><b>Caution.</b> {esc(CAUTION)} Ebullio rates '
-                       "thermal and hydraulic performance only: no mechanical design, no relief "
-                       "cases.</td>"],
+    rep.add(Table("", [f'<td class="caution"><b>Caution.</b> {esc(CAUTION)} '
+                       f"{esc(SCOPE)}</td>"],
                   'width="100%" border="1" cellspacing="0" cellpadding="6" class="caution"'))
     if project.notes:
         rep.add(f"<p>{esc(project.notes)}</p>")

@@ -10,12 +10,13 @@ from __future__ import annotations
 
 import os
 
+from rating.caution import CAUTION_SHORT
+
 MM_PER_INCH = 25.4
 LOGICAL_DPI = 96.0
 PAGE_MM = (210.0, 297.0)                     # A4
 MARGINS_MM = (15.0, 21.0, 15.0, 17.0)        # left, top (header), right, bottom (footer)
-FOOTER_CAUTION = ("Engineering estimates: to be checked by a qualified engineer under local "
-                  "codes and licensed practice.")
+FOOTER_CAUTION = CAUTION_SHORT
 
 
 def _px(mm: float) -> float:
