@@ -3,12 +3,14 @@
     python benchmarks/bench_gui.py [--edits 20] [--skip-startup]
 
 1. Edit to updated plots: for one sample of each exchanger type, 20 edits of one
-   field (typed into the datasheet's editor); the time from the edit to the moment the
-   along-the-tube panel shows the new result (drawn off the GUI thread and painted),
-   median and worst. The edit waits out the typing pause (``gui.runner.DEBOUNCE_MS``)
-   before the rating starts; the figures are given with and without it. Beside them,
-   the same 20 ratings alone (``rating.rate`` in this process, no window), so that the
-   window's own share is visible on a shared machine.
+   field (typed into the datasheet's editor, then committed with Enter unless
+   ``--typing``); the time from the edit to the moment the along-the-tube panel shows
+   the new result (drawn off the GUI thread and painted), median and worst. A typed
+   edit waits out the typing pause (``gui.runner.DEBOUNCE_MS``) before the rating
+   starts, a committed one does not; with ``--typing`` the figures are given with and
+   without the pause. Beside them, the same 20 ratings alone (``rating.rate`` in this
+   process, no window), so that the window's own share is visible on a shared
+   machine, and the GUI thread's time per keystroke (the form, the runner's request).
 2. The longest event-loop block while this runs: a 5 ms timer in the GUI thread; the
    largest gap between its ticks, less 5 ms.
 3. Start-up in a fresh process: from launch to the painted window, to the plot panels
@@ -109,7 +111,7 @@ def ratings_alone(draft, path, values, n):
     return times
 
 
-def edits(n: int):
+def edits(n: int, commit: bool = True):
     os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
     from PySide6.QtCore import QElapsedTimer, QTimer
     from PySide6.QtWidgets import QApplication
@@ -140,6 +142,17 @@ def edits(n: int):
     beat.setInterval(5)
     beat.timeout.connect(tick)
     drawn = {"t": None}
+    spent = {"rate": 0.0}               # the runner's request on the GUI thread
+    real_rate = w.runner.rate
+
+    def timed_rate(entry_id):
+        t = time.perf_counter()
+        real_rate(entry_id)
+        spent["rate"] += time.perf_counter() - t
+    w.runner.rate = timed_rate
+    for t in w.runner._timers.values():
+        t.timeout.disconnect()
+    w.runner._timers.clear()            # made anew, calling the timed request
     w.along.drawn.connect(lambda: drawn.__setitem__("t", time.perf_counter()))
 
     def wait(cond, timeout=120):
@@ -169,27 +182,33 @@ def edits(n: int):
         if values is None:
             v0 = catalogue.get_value(w.doc.entry(eid).draft, path)
             values = (v0, v0 * 0.98)
-        times = []
+        times, keystroke = [], []
         gaps.update(worst=0.0, last=clock.elapsed(), ticks=0, over=0)
         beat.start()
         for i in range(n):
             value = values[(i + 1) % 2]
             text = forms.format_input(value, field, "SI")
             drawn["t"] = None
+            spent["rate"] = 0.0
             t0 = time.perf_counter()
             editor.setText(text)
             editor.textEdited.emit(text)
+            typed = time.perf_counter() - t0
+            if commit:
+                editor.editingFinished.emit()
             ok = wait(lambda: drawn["t"] is not None and w.runner.state(eid).status != "rating"
                       and not w.runner.state(eid).stale and w.along.settled())
             if not ok:
                 print(f"  {kind}: edit {i} gave no new plot ({w.runner.state(eid).status})")
                 continue
             times.append(drawn["t"] - t0)
+            keystroke.append(typed + spent["rate"])
         beat.stop()
         debounce = runner.DEBOUNCE_MS / 1000
         alone = ratings_alone(w.doc.entry(eid).draft, path, values, n)
         rows.append((kind, name, statistics.median(times), max(times), debounce, gaps["worst"], len(times),
-                     statistics.median(alone), max(alone), gaps["over"], gaps["ticks"]))
+                     statistics.median(alone), max(alone), gaps["over"], gaps["ticks"],
+                     statistics.median(keystroke)))
     w.doc.undo.setClean()
     w.close()
     return rows, idle
@@ -200,6 +219,8 @@ def main(argv=None) -> int:
     p.add_argument("--edits", type=int, default=20)
     p.add_argument("--skip-startup", action="store_true")
     p.add_argument("--startup-only", action="store_true")
+    p.add_argument("--typing", action="store_true",
+                   help="keystrokes only, no Enter: the rating waits for the typing pause")
     args = p.parse_args(argv)
     load = os.getloadavg()[0] if hasattr(os, "getloadavg") else float("nan")
     t = time.perf_counter()
@@ -213,13 +234,19 @@ def main(argv=None) -> int:
               f"first sample rated and drawn {rated:.2f} s")
     if args.startup_only:
         return 0
-    print(f"edit -> updated plots, {args.edits} edits each (debounce included / excluded), "
-          "longest event-loop block")
-    rows, idle = edits(args.edits)
+    print(f"{'typed' if args.typing else 'committed (Enter)'} edit -> updated plots, "
+          f"{args.edits} edits each" + (" (typing pause included / excluded)" if args.typing else "")
+          + ", longest event-loop block, GUI-thread time per keystroke")
+    rows, idle = edits(args.edits, commit=not args.typing)
     print(f"  longest event-loop gap with the window idle for 8 s (the machine's share): {idle:.0f} ms")
-    for kind, name, med, worst, debounce, block, n, r_med, r_worst, over, ticks in rows:
-        print(f"  {kind:<12} {name:<30} median {med * 1000:6.0f} ms / {(med - debounce) * 1000:6.0f} ms; "
-              f"worst {worst * 1000:6.0f} ms / {(worst - debounce) * 1000:6.0f} ms; "
+    for kind, name, med, worst, debounce, block, n, r_med, r_worst, over, ticks, key in rows:
+        if args.typing:
+            shown = (f"median {med * 1000:6.0f} ms / {(med - debounce) * 1000:6.0f} ms; "
+                     f"worst {worst * 1000:6.0f} ms / {(worst - debounce) * 1000:6.0f} ms; ")
+        else:
+            shown = f"median {med * 1000:6.0f} ms; worst {worst * 1000:6.0f} ms; "
+        print(f"  {kind:<12} {name:<30} {shown}"
+              f"GUI thread per keystroke {key * 1000:5.1f} ms; "
               f"longest block {block:5.0f} ms, {over} of {ticks} ticks late by over 50 ms ({n} edits); "
               f"the rating alone: median {r_med * 1000:4.0f} ms, worst {r_worst * 1000:4.0f} ms")
     return 0

@@ -163,6 +163,23 @@ class Document(QObject):
             self.casesChanged.emit()
 
 
+_PROBLEMS: list = []        # (draft, its problems) of the latest drafts, newest first
+
+
+def draft_problems(draft) -> list:
+    """``catalogue.draft_problems`` of a draft, computed once per draft object: the form
+    and the runner ask about the same draft on every keystroke. A draft is never changed
+    in place (every edit makes a new one, ``catalogue.set_value``), so its identity is
+    its content; the drafts are held here, so an identity is never reused meanwhile."""
+    for known, problems in _PROBLEMS:
+        if known is draft:
+            return problems
+    problems = catalogue.draft_problems(draft)
+    _PROBLEMS.insert(0, (draft, problems))
+    del _PROBLEMS[8:]
+    return problems
+
+
 class _SetValue(QUndoCommand):
     def __init__(self, doc: Document, entry_id: int, path: str, old, new):
         f = _label(path)

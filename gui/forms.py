@@ -16,6 +16,7 @@ from PySide6.QtWidgets import (QCheckBox, QComboBox, QFrame, QGridLayout, QLabel
 from rating import catalogue
 
 from . import units
+from .document import draft_problems
 
 NUMERIC = ("number", "integer")
 _NOTHING = object()
@@ -187,7 +188,11 @@ class Row:
             value = text.strip()
             self.form.entry_problems[path] = (value, str(exc))
         self.form.echo[self.field.path] = value     # keep the text as typed while it is the value
-        self.form.edited.emit(self.field.path, value)
+        self.form.typing = True                     # a keystroke: the rating waits for a pause
+        try:
+            self.form.edited.emit(self.field.path, value)
+        finally:
+            self.form.typing = False
 
     def _chosen(self, index):
         if 0 <= index < len(self._choices):
@@ -285,6 +290,7 @@ class CaseForm(QScrollArea):
     """The datasheet of one exchanger type; bound to one case at a time."""
 
     edited = Signal(str, object)       # path, SI value (or the text typed when not a number)
+    committed = Signal(str)            # path: an entry finished (Enter, Tab, focus left)
 
     def __init__(self, case_type: str, parent=None):
         super().__init__(parent)
@@ -292,6 +298,7 @@ class CaseForm(QScrollArea):
         self.system = "SI"
         self.echo: dict = {}               # path -> value just typed (its text stays as typed)
         self.entry_problems: dict = {}     # path -> (text kept in the draft, why not a number)
+        self.typing = False                # True while a keystroke's edit is emitted
         self.setWidgetResizable(True)
         self.setFrameShape(QFrame.NoFrame)
         self.setHorizontalScrollBarPolicy(Qt.ScrollBarAlwaysOff)
@@ -321,7 +328,7 @@ class CaseForm(QScrollArea):
                 self.rows[f.path] = row
                 chain.append(row.editor)
                 if isinstance(row.editor, QLineEdit):
-                    row.editor.editingFinished.connect(lambda p=f.path: self.echo.pop(p, None))
+                    row.editor.editingFinished.connect(lambda p=f.path: self._finished(p))
         for a, b in zip(chain, chain[1:]):        # tab order follows the datasheet
             QWidget.setTabOrder(a, b)
         self.chain = chain
@@ -330,6 +337,10 @@ class CaseForm(QScrollArea):
         for key in ("methods", "limits"):          # rarely changed: folded at first
             if key in self.sections:
                 self.sections[key].button.setChecked(False)
+
+    def _finished(self, path):
+        self.echo.pop(path, None)
+        self.committed.emit(path)
 
     def show_draft(self, draft: dict, system: str):
         """Show a draft's values, the rows that apply, and every problem beside its field."""
@@ -343,7 +354,7 @@ class CaseForm(QScrollArea):
         for path, row in self.rows.items():
             if row.editor.isVisibleTo(row.section):
                 row.show_value(catalogue.get_value(draft, path), draft, system)
-        self.show_problems(catalogue.draft_problems(draft), draft)
+        self.show_problems(draft_problems(draft), draft)
 
     def show_problems(self, problems, draft=None):
         """Every problem beside its field; an entry that is not a number says so in the

@@ -578,6 +578,8 @@ class MainWindow(QMainWindow):
             form = self.forms[case_type] = CaseForm(case_type)
             form.setObjectName(f"datasheet-{case_type}")
             form.edited.connect(self._field_edited)
+            form.committed.connect(lambda _path: self.current_id is not None
+                                   and self.runner.commit(self.current_id))
             self.form_stack.addWidget(form)
         return form
 
@@ -593,11 +595,14 @@ class MainWindow(QMainWindow):
     # --- edits ------------------------------------------------------------------------------
     def _field_edited(self, path, value):
         if self.current_id is not None:
+            form = self.current_form()
             self._typing = True
+            self.runner.typing = form is not None and form.typing     # a keystroke waits
             try:
                 self.doc.set_value(self.current_id, path, value)
             finally:
                 self._typing = False
+                self.runner.typing = False
 
     def _case_edited(self, entry_id, path):
         if entry_id == self.current_id:

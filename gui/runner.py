@@ -1,4 +1,5 @@
-"""Live rating: each edit restarts a rating in a worker thread after a pause in typing.
+"""Live rating: each edit restarts a rating in a worker thread: at once for a committed
+entry (Enter, Tab, a choice, undo), after a pause for keystrokes while typing.
 
 Only the GUI thread touches widgets. A worker gets the case as plain data (a draft),
 builds and rates it, and hands the result back by a queued signal. Each request has
@@ -16,6 +17,8 @@ from dataclasses import dataclass, field
 from PySide6.QtCore import QObject, QRunnable, QThreadPool, QTimer, Signal
 
 from rating import catalogue
+
+from .document import draft_problems
 
 DEBOUNCE_MS = 250
 
@@ -90,6 +93,7 @@ class Runner(QObject):
         self._signals.progress.connect(self._on_progress)
         self._signals.done.connect(self._on_done)
         self.live = True
+        self.typing = False             # set while a keystroke's edit goes through
         document.caseChanged.connect(self._on_edit)
         document.casesChanged.connect(self._on_cases)
 
@@ -105,13 +109,23 @@ class Runner(QObject):
         st.stale = st.result is not None
         st.status = STALE if st.result is not None else NOT_RATED
         self.stateChanged.emit(entry_id)
-        if self.live:
+        if self.live and not self.typing:
+            self.rate(entry_id)         # a committed edit: no pause to wait for
+        elif self.live:
             timer = self._timers.get(entry_id)
             if timer is None:
                 timer = self._timers[entry_id] = QTimer(self)
                 timer.setSingleShot(True)
                 timer.timeout.connect(lambda e=entry_id: self.rate(e))
             timer.start(DEBOUNCE_MS)
+
+    def commit(self, entry_id: int):
+        """An entry was committed (Enter, Tab, focus left): rate now if the typing pause
+        is still running."""
+        timer = self._timers.get(entry_id)
+        if timer is not None and timer.isActive():
+            timer.stop()
+            self.rate(entry_id)
 
     def _on_cases(self):
         ids = {e.id for e in self.doc.entries}
@@ -128,7 +142,7 @@ class Runner(QObject):
         st = self.state(entry_id)
         self._stop(entry_id)
         st.generation += 1
-        errors = [p for p in catalogue.draft_problems(entry.draft) if p.severity == "error"]
+        errors = [p for p in draft_problems(entry.draft) if p.severity == "error"]
         if errors:
             st.status = INVALID
             st.stale = st.result is not None
