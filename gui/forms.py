@@ -169,6 +169,7 @@ class Row:
             g.addWidget(self.unit, 2 * r, 2)
         g.addWidget(self.message, 2 * r + 1, 0, 1, 3)
         self._choices: list[str] = []
+        self._tip_key, self._tip = None, ""
 
     def widgets(self):
         return (self.label, self.editor) + (() if self.spans else (self.unit,))
@@ -200,18 +201,22 @@ class Row:
 
     def show_value(self, value, draft, system):
         f = self.field
-        label = units.unit_label(f.quantity, system)
-        self.unit.setText("" if label in ("-", "–") else label)
-        tip = [f.help] if f.help else []
-        rng = _range_text(f, system)
-        if rng:
-            tip.append(rng)
-        if f.default is not None and f.kind in NUMERIC:
-            tip.append(f"default: {format_input(f.default, f, system)} {self.unit.text()}".rstrip())
-        elif f.optional:
-            tip.append("may be left empty")
-        tooltip = "\n".join(tip)
-        self.label.setToolTip(tooltip)
+        key = (system, QLocale().name())
+        if self._tip_key != key:        # the same for every keystroke: made once per units
+            self._tip_key = key
+            label = units.unit_label(f.quantity, system)
+            self.unit.setText("" if label in ("-", "–") else label)
+            tip = [f.help] if f.help else []
+            rng = _range_text(f, system)
+            if rng:
+                tip.append(rng)
+            if f.default is not None and f.kind in NUMERIC:
+                tip.append(f"default: {format_input(f.default, f, system)} {self.unit.text()}".rstrip())
+            elif f.optional:
+                tip.append("may be left empty")
+            self._tip = "\n".join(tip)
+            self.label.setToolTip(self._tip)
+        tooltip = self._tip
         if isinstance(value, dict):
             tooltip = "A user property table (cp, rho, mu, k against T); edit it in the project file."
         if isinstance(self.editor, QComboBox):
