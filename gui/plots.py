@@ -394,7 +394,7 @@ class BalanceFigure:
         (self.chosen,) = ax.plot([], [], "o", color=INK, ms=8, label="operating point")
         # a circulation the loop was not solved at has no pressure difference: it is marked
         # on the circulation axis (x in data, y on the axes' bottom edge), never at 0 Pa
-        (self.unsolved,) = ax.plot([], [], "|", color="#888888", ms=10, mew=1.5, clip_on=False,
+        (self.unsolved,) = ax.plot([], [], "x", color="#666666", ms=7, mew=1.5, clip_on=False,
                                    transform=ax.get_xaxis_transform(),
                                    label="not solved (on the axis)")
         # the note sits between the title and the plot, never on the curves
