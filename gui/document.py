@@ -17,6 +17,8 @@ from PySide6.QtGui import QUndoCommand, QUndoStack
 
 from rating import catalogue
 
+from . import units
+
 _ids = itertools.count(1)
 _SET_VALUE = 1  # QUndoCommand.id() of a field edit, so that consecutive edits merge
 
@@ -174,10 +176,28 @@ def draft_problems(draft) -> list:
     for known, problems in _PROBLEMS:
         if known is draft:
             return problems
-    problems = catalogue.draft_problems(draft)
+    problems = [_entry_problem(draft, p) for p in catalogue.draft_problems(draft)]
     _PROBLEMS.insert(0, (draft, problems))
     del _PROBLEMS[8:]
     return problems
+
+
+def _entry_problem(draft, problem):
+    """A number's field holding the text typed (not a number in the user's locale): its
+    problem says why, in the locale's terms ("the decimal point is '.'"), naming the
+    field, in place of the engine's "must be a number"."""
+    try:
+        f = catalogue.input_field(problem.path)
+    except KeyError:
+        return problem
+    text = catalogue.get_value(draft, problem.path)
+    if f.kind not in ("number", "integer") or not isinstance(text, str):
+        return problem
+    try:
+        units.parse_number(text)
+    except ValueError as exc:
+        return catalogue.Problem(problem.path, f"{f.label}: {exc}", problem.severity)
+    return problem
 
 
 class _SetValue(QUndoCommand):

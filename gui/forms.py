@@ -181,13 +181,10 @@ class Row:
             self.message.setVisible(False)
 
     def _typed(self, text):
-        path = self.field.path
         try:
             value = parse_input(text, self.field, self.form.system)
-            self.form.entry_problems.pop(path, None)
-        except ValueError as exc:           # kept as typed: the draft stays invalid
-            value = text.strip()
-            self.form.entry_problems[path] = (value, str(exc))
+        except ValueError:                  # kept as typed: the draft stays invalid, and
+            value = text.strip()            # its problem says why (document.draft_problems)
         self.form.echo[self.field.path] = value     # keep the text as typed while it is the value
         self.form.typing = True                     # a keystroke: the rating waits for a pause
         try:
@@ -302,7 +299,6 @@ class CaseForm(QScrollArea):
         self.case_type = case_type
         self.system = "SI"
         self.echo: dict = {}               # path -> value just typed (its text stays as typed)
-        self.entry_problems: dict = {}     # path -> (text kept in the draft, why not a number)
         self.typing = False                # True while a keystroke's edit is emitted
         self.setWidgetResizable(True)
         self.setFrameShape(QFrame.NoFrame)
@@ -359,18 +355,9 @@ class CaseForm(QScrollArea):
         for path, row in self.rows.items():
             if row.editor.isVisibleTo(row.section):
                 row.show_value(catalogue.get_value(draft, path), draft, system)
-        self.show_problems(draft_problems(draft), draft)
+        self.show_problems(draft_problems(draft))
 
-    def show_problems(self, problems, draft=None):
-        """Every problem beside its field; an entry that is not a number says so in the
-        form's words (the locale's decimal point) in place of the engine's."""
-        if draft is not None:
-            for path, (text, _) in list(self.entry_problems.items()):
-                if catalogue.get_value(draft, path) != text:    # replaced, or undone
-                    del self.entry_problems[path]
-        entry = self.entry_problems
-        problems = [p for p in problems if p.path not in entry] + \
-            [catalogue.Problem(path, message, "error") for path, (_, message) in entry.items()]
+    def show_problems(self, problems):
         by_path, general = {}, []
         for p in problems:
             row = self.rows.get(p.path)

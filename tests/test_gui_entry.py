@@ -68,6 +68,8 @@ def test_heating_pressure_typed_with_a_decimal_comma_is_an_entry_problem_beside_
     assert value != pytest.approx(25 * BAR)       # never guessed as 25 bar
     message = w.current_form().message("heating.pressure")
     assert "Heating pressure" in message and "decimal point is '.'" in message
+    # the answer line and the warnings list say the same, not the engine's "must be a number"
+    assert w.runner.state(w.current_id).message == message
     # the same value with the locale's point rates, and the message goes
     set_text(qtbot, w, "heating.pressure", "2.5")
     assert catalogue.get_value(w.doc.entry(w.current_id).draft,
