@@ -599,3 +599,20 @@ def test_a_cancel_is_reported_as_cancelled_even_beside_a_failed_point(chiller, m
                  [Parameter("boiling.fouling_resistance", 0.0, 2e-3)], executor=InlineExecutor(),
                  cancel=lambda: True)
     assert result.status == "cancelled", result.message
+
+
+def test_every_warning_code_the_envelope_reads_is_a_rule():
+    # The envelope classifies points by warning codes; a code missing from the rule table
+    # (renamed there) would make its limit read "within" everywhere, silently.
+    import importlib
+    import inspect
+    import re
+
+    from rating import rules
+
+    envelope = importlib.import_module("rating.studies.envelope")  # the module, not the function
+
+    assert envelope.CODES_READ <= set(rules.RULES)
+    source = inspect.getsource(envelope)
+    quoted = set(re.findall(r'"([a-z]+(?:-[a-z0-9]+)+)"', source))
+    assert quoted <= envelope.CODES_READ | set(envelope.LIMITS), quoted - envelope.CODES_READ

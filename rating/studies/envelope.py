@@ -39,6 +39,13 @@ LIMITS = {
     "entrainment": "No liquid entrainment from the kettle",
     "feed": "The kettle's feed keeps the pool at the weir",
 }
+#: The warning codes (rating.rules) the limits below read: a code renamed there must be
+#: renamed here, or a limit would quietly read "within" (tests/test_studies.py checks).
+CODES_READ = frozenset({
+    "duty-not-reached", "dryout", "chf-margin", "bundle-flux-limit", "will-not-circulate",
+    "negative-slope", "multiple-operating-points", "entrainment", "freeboard", "feed-boiled-dry",
+})
+
 _TYPE_LIMITS = {
     "evaporator": ("duty", "critical_flux"),
     "thermosiphon": ("duty", "critical_flux", "circulation", "stability"),
