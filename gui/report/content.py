@@ -240,11 +240,9 @@ def _input_text(f, value, draft, units: str) -> tuple[str, str]:
         return ("yes" if value else "no"), ""
     if f.kind == "fluid" and isinstance(value, dict):
         return f"user property table ({len(value.get('T', ()))} points)", ""
-    if f.kind == "choice" and f.group in ("methods", "kettle") and isinstance(value, str):
-        try:
-            titles = {name: title for name, title, _ in method_choices(f.path, draft)}
-        except (KeyError, ValueError):
-            titles = {}
+    if f.kind == "choice" and f.choices is None and isinstance(value, str):
+        # a method: its title (a fixed list such as the tube form is shown as it is below)
+        titles = {name: title for name, title, _ in method_choices(f.path, draft)}
         return titles.get(value, value), ""
     if f.kind in ("number", "integer") and not isinstance(value, bool):
         if f.quantity in ("count", "angle"):
