@@ -259,3 +259,18 @@ def test_a_report_never_replaces_a_file_it_did_not_write(rated, tmp_path, capsys
     # written again over its own table, without asking
     assert table in write_report(project, cases, out, "US", source, results=results)
     assert "[ft]" in table.read_text(encoding="utf-8")
+
+
+def test_a_window_can_follow_a_report_in_one_process():
+    # The application object a report makes is the process's for good: a bare
+    # QGuiApplication made Qt abort at the first widget that followed (seen when the
+    # report tests ran before the desktop's in one pytest process).
+    code = ("import os; os.environ['QT_QPA_PLATFORM'] = 'offscreen'\n"
+            "from gui.report.pdf import ensure_app\n"
+            "ensure_app()\n"
+            "from PySide6.QtWidgets import QLabel\n"
+            "QLabel('after a report').show()\n"
+            "print('shown')\n")
+    proc = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True,
+                          timeout=120, cwd=Path(__file__).parent.parent)
+    assert proc.returncode == 0 and proc.stdout.strip() == "shown", proc.stderr[-500:]

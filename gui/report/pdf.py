@@ -24,13 +24,18 @@ def _px(mm: float) -> float:
 
 
 def ensure_app():
-    """A QGuiApplication for fonts and images; a report needs no screen (offscreen)."""
-    from PySide6.QtGui import QGuiApplication
+    """The application object for fonts and images; a report needs no screen (offscreen).
 
-    app = QGuiApplication.instance()
+    A widgets QApplication, not a bare QGuiApplication: a process holds one application
+    object for its life, and one that later shows a window or a dialog (a test session,
+    a script that writes a report and then opens the desktop) aborts on its first widget
+    if the first object made was a QGuiApplication."""
+    from PySide6.QtWidgets import QApplication
+
+    app = QApplication.instance()
     if app is None:
         os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
-        app = QGuiApplication(["ebullio-report"])
+        app = QApplication(["ebullio-report"])
     return app
 
 
