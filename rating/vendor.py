@@ -299,11 +299,19 @@ def _deviation_text(r: ComparedFigure) -> str:
     return f"{r.deviation:+.3f} against Ebullio, tolerance {r.tolerance:g}"
 
 
+_BAND_WORDS = {"%": " %", "points": " points", "-": ""}
+
+
+def tolerance_text(r: ComparedFigure) -> str:
+    """The tolerance of one row as the comparison tables show it ("±10 %", "±0.05")."""
+    return f"±{r.tolerance:g}{_BAND_WORDS[r.deviation_unit]}"
+
+
 def deviation_text(r: ComparedFigure) -> str:
     """The deviation of one row as the comparison tables show it ("not comparable" if none)."""
     if r.deviation is None:
         return "not comparable"
-    unit = {"%": " %", "points": " points", "-": ""}[r.deviation_unit]
+    unit = _BAND_WORDS[r.deviation_unit]
     places = 3 if r.deviation_unit == "-" else 1
     shown = round(r.deviation, places) + 0.0          # no "-0.000" for a deviation that rounds to 0
     return f"{shown:+.{places}f}{unit}"

@@ -19,7 +19,7 @@ from rating import __version__ as ebullio_version
 from rating.catalogue import (GROUPS, INPUTS, SUMMARY, applies, case_to_draft, get_value,
                               method_choices, vendor_label)
 from rating.caution import CAUTION, SCOPE
-from rating.vendor import TOLERANCE_BASIS, compare, describe, deviation_text
+from rating.vendor import TOLERANCE_BASIS, compare, describe, deviation_text, tolerance_text
 from gui.units import SYSTEM_TITLES, format_number, to_display, unit_label
 from gui.warning_text import warning_text
 
@@ -206,7 +206,6 @@ def _vendor(comparison, units: str) -> list:
     out = []
     for r in comparison.rows:
         quantity = _VENDOR_QUANTITY[r.figure]
-        band = {"%": " %", "points": " points", "-": ""}[r.deviation_unit]
         verdict = esc(r.verdict)
         if r.verdict in ("optimistic", "conservative"):
             verdict = f'<span class="{r.verdict}">{verdict}</span>'
@@ -215,7 +214,7 @@ def _vendor(comparison, units: str) -> list:
                    f"<td class=\"num\">{esc(_num(r.vendor, quantity, units))}</td>"
                    f"<td class=\"num\">{esc(_num(r.ebullio, quantity, units))}</td>"
                    f"<td class=\"num\">{esc(deviation_text(r))}</td>"
-                   f"<td class=\"num\">&plusmn;{r.tolerance:g}{band}</td>"
+                   f"<td class=\"num\">{esc(tolerance_text(r))}</td>"
                    f"<td>{verdict}{note}</td>")
     stated = [r.figure for r in comparison.rows]
     basis = "<br/>".join(f"<b>{esc(vendor_label(f))}</b>: {esc(TOLERANCE_BASIS[f])}"

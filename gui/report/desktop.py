@@ -12,7 +12,7 @@ from __future__ import annotations
 from pathlib import Path
 
 from rating import catalogue
-from rating.vendor import compare, describe, deviation_text
+from rating.vendor import compare, describe, deviation_text, tolerance_text
 
 
 #: Colours of the flagged verdicts (the report's: dark orange and dark blue).
@@ -152,10 +152,9 @@ def comparison_rows(comparison, system: str) -> list[tuple[str, ...]]:
     rows = []
     for r in comparison.rows:
         quantity = catalogue.input_field(f"vendor.{r.figure}").quantity
-        band = {"%": " %", "points": " points", "-": ""}[r.deviation_unit]
         shown = [format_value(v, quantity, system).removesuffix(" –") for v in (r.vendor, r.ebullio)]
         rows.append((catalogue.vendor_label(r.figure), *shown, deviation_text(r),
-                     f"±{r.tolerance:g}{band}", r.verdict, r.note))
+                     tolerance_text(r), r.verdict, r.note))
     return rows
 
 
