@@ -203,7 +203,7 @@ def csv_names(names) -> list[str]:
 def vendor_table(comparison, display=None) -> str:
     """The vendor comparison of one case, beside the summary table (same units)."""
     from .catalogue import input_field, vendor_label
-    from .vendor import describe, deviation_text
+    from .vendor import describe, deviation_text, tolerance_text
 
     show = display or BaseUnits()
     lines = [f"  Vendor figures{f' ({comparison.source})' if comparison.source else ''}:"
@@ -215,7 +215,9 @@ def vendor_table(comparison, display=None) -> str:
         note = f"  ({r.note})" if r.note else ""
         lines.append(f"    {vendor_label(r.figure):<28} vendor {vendor:>10}"
                      f"  Ebullio {ebullio:>10} {unit:<7}"
-                     f" {deviation_text(r) if r.deviation is not None else '':>14}  {r.verdict}{note}")
+                     f" {deviation_text(r) if r.deviation is not None else '':>14}"
+                     f" {'(' + tolerance_text(r) + ')' if r.deviation is not None else '':>14}"
+                     f"  {r.verdict}{note}")
     return "\n".join(lines)
 
 
