@@ -195,6 +195,9 @@ class UnitSketch(QWidget):
     # --- kettle: the end view of the shell, the bundle, the liquid up to the weir
     def _kettle(self, p, box):
         d = self._kettle_draft            # empty dimensions at the engine's defaults
+
+        def said(name, text):             # a dimension the user left empty says so
+            return text if _num(self.draft, f"kettle.{name}") else f"{text} (default)"
         D = _num(d, "kettle.kettle_diameter")
         port = _num(d, "kettle.port_diameter")
         bundle = _num(d, "kettle.bundle_diameter")
@@ -223,7 +226,7 @@ class UnitSketch(QWidget):
             p.restore()
             p.setPen(QPen(QColor(C["blue"]), 1.4, Qt.DashLine))
             p.drawLine(QPointF(shell.left() - 6, y(weir)), QPointF(shell.right() + 10, y(weir)))
-            labels.append((y(weir) + 4, f"weir {self._len(weir)}"))
+            labels.append((y(weir) + 4, said("weir_height", f"weir {self._len(weir)}")))
         if port:
             p.setPen(QPen(STEEL, 1.0, Qt.DotLine))
             p.setBrush(Qt.NoBrush)
@@ -233,11 +236,11 @@ class UnitSketch(QWidget):
                 p.setPen(QPen(QColor(C["vermillion"]), 1.4))
                 p.setBrush(QColor(C["vermillion"]).lighter(190))
                 p.drawEllipse(QRectF(cx - bundle * s / 2, y(b0 + bundle), bundle * s, bundle * s))
-                labels.append((y(b0 + bundle) + 4, f"bundle {self._len(bundle)}"))
+                labels.append((y(b0 + bundle) + 4, said("bundle_diameter", f"bundle {self._len(bundle)}")))
         p.setPen(INK)
-        labels.append((shell.top() + 12, f"kettle {self._len(D)}"))
+        labels.append((shell.top() + 12, said("kettle_diameter", f"kettle {self._len(D)}")))
         if port:
-            labels.append((bottom - 2, f"port {self._len(port)}"))
+            labels.append((bottom - 2, said("port_diameter", f"port {self._len(port)}")))
         self.texts += _spread_labels(p, shell.right() + 14, labels, box.top() + 12, bottom - 2)
         return True
 

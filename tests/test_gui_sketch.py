@@ -54,3 +54,20 @@ def test_a_kettles_defaults_are_resolved_once_per_draft(qtbot, monkeypatch):
         w.grab()
     assert len(calls) == 1
     assert any(t.startswith("kettle ") for t in w.texts)
+
+
+def test_a_kettle_dimension_left_empty_is_labelled_default(qtbot):
+    from rating import catalogue
+    from rating.project import to_dict
+
+    kettle = next(p for p in sorted(SAMPLES.glob("*.ebullio"))
+                  if rating.load_project(p).cases[0].type == "kettle")
+    draft = to_dict(rating.load_project(kettle).cases[0])
+    draft = catalogue.set_value(draft, "kettle.port_diameter", None)
+    w = _sketch(qtbot)
+    w.show_draft(draft, "SI")
+    w.grab()
+    port = [t for t in w.texts if t.startswith("port ")]
+    assert port and port[0].endswith("(default)")
+    # the bundle is given in the sample (0.5 m): labelled with its value only
+    assert "bundle 0.500 m" in w.texts
