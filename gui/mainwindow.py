@@ -39,6 +39,7 @@ TYPE_TITLES = {"evaporator": "in-tube evaporator", "thermosiphon": "vertical the
 SYSTEM_TITLES = {"SI": "SI", "metric": "Metric", "US": "US customary"}
 FILE_FILTER = "Ebullio projects (*.ebullio);;All files (*)"
 AUTOSAVE_MS = 15000
+PROGRESS_DELAY_MS = 250     # a rating still running after this shows its progress and Stop
 _AT_EXIT: list = []
 
 
@@ -211,6 +212,15 @@ class MainWindow(QMainWindow):
         self.stop_button.clicked.connect(self.stop_rating)
         bar.addWidget(self.progress, 1)
         bar.addWidget(self.stop_button)
+        # Shown only for a rating still running after a moment: most take tens of ms,
+        # and showing and hiding the bar for each re-lays the row out and repaints the
+        # window in the GUI thread (the longest event-loop block of an edit).
+        self._progress_shown = QTimer(self)
+        self._progress_shown.setSingleShot(True)
+        self._progress_shown.setInterval(PROGRESS_DELAY_MS)
+        self._progress_shown.timeout.connect(self._show_progress)
+        self.progress.setVisible(False)
+        self.stop_button.setVisible(False)
         bar.addSpacing(12)
         bar.addWidget(QLabel("Compare with:"))
         self.compare_box = QComboBox()
@@ -671,8 +681,15 @@ class MainWindow(QMainWindow):
         item = self._item(entry_id)
         if item is not None:
             self._paint_item(item, self.doc.entry(entry_id))
-        if entry_id == self.current_id:
+        if entry_id == self.current_id and self.progress.isVisible():
             self.progress.setValue(int(fraction * 100))
+
+    def _show_progress(self):
+        """The progress bar and Stop, for the chosen case's rating still running."""
+        if self.current_id is not None and self.runner.state(self.current_id).status == RATING:
+            self.progress.setValue(int(self.runner.state(self.current_id).progress * 100))
+            self.progress.setVisible(True)
+            self.stop_button.setVisible(True)
 
     def _item(self, entry_id):
         for row in range(self.case_list.count()):
@@ -700,9 +717,13 @@ class MainWindow(QMainWindow):
         entry = self.doc.entry(self.current_id)
         result = st.result
         running = st.status == RATING
-        self.progress.setVisible(running)
-        self.stop_button.setVisible(running)
-        self.progress.setValue(int(st.progress * 100))
+        if not running:
+            self._progress_shown.stop()
+            if self.progress.isVisible():
+                self.progress.setVisible(False)
+                self.stop_button.setVisible(False)
+        elif not self.progress.isVisible() and not self._progress_shown.isActive():
+            self._progress_shown.start()
         text = verdict(st.failure if st.failure is not None else result, self.system,
                        message=st.message if st.failure is not None or result is None else "")
         if st.status == "invalid input":

@@ -172,7 +172,10 @@ def test_cancel_stops_a_running_rating(window, qtbot, monkeypatch):
     eid = w.current_id
     w.runner.rate(eid)
     assert started.wait(60)
-    assert w.runner.state(eid).status == "rating" and w.stop_button.isVisibleTo(w)
+    assert w.runner.state(eid).status == "rating"
+    # a rating still running after a moment shows its progress and Stop
+    qtbot.waitUntil(lambda: w.stop_button.isVisibleTo(w) and w.progress.isVisibleTo(w),
+                    timeout=5000)
     w.a_stop.trigger()
     pressed.set()
     assert w.runner.state(eid).status == "cancelled"
