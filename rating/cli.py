@@ -43,9 +43,9 @@ exit status:
      (one line on standard error, nothing rated, nothing written)
   {EXIT_INTERNAL}  internal error: a fault in Ebullio (one line on standard error)"""
 
-COLD_START = ("Cold start: a first call takes about 5 to 15 s before the first rating, most of it "
-              "loading the fluid-property library (CoolProp); each case then takes "
-              "0.1 to 2 s.")
+COLD_START = ("Cold start: a first call takes about 2 s before the first rating on a quiet "
+              "machine (more on a busy one), most of it loading the fluid-property library "
+              "(CoolProp); each case then takes 0.01 to 0.1 s.")
 
 #: Set to 1 to see the traceback of an internal error (for a bug report).
 DEBUG_VARIABLE = "EBULLIO_DEBUG"
