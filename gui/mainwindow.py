@@ -34,9 +34,7 @@ from .verdict import verdict
 from .warning_text import rules_html
 
 from rating.caution import CAUTION, CAUTION_SHORT, SCOPE
-TYPE_TITLES = {"evaporator": "in-tube evaporator", "thermosiphon": "vertical thermosiphon",
-               "kettle": "kettle reboiler"}
-SYSTEM_TITLES = {"SI": "SI", "metric": "Metric", "US": "US customary"}
+from rating.catalogue import TYPE_TITLES
 FILE_FILTER = "Ebullio projects (*.ebullio);;All files (*)"
 AUTOSAVE_MS = 15000
 PROGRESS_DELAY_MS = 250     # a rating still running after this shows its progress and Stop
@@ -409,7 +407,7 @@ class MainWindow(QMainWindow):
         group = QActionGroup(self)
         self.a_units = {}
         for i, s in enumerate(units.SYSTEMS):
-            a = self._act(m, f"{SYSTEM_TITLES.get(s, s)} units", lambda _=False, s=s: self.set_system(s),
+            a = self._act(m, f"{units.SYSTEM_TITLES.get(s, s)} units", lambda _=False, s=s: self.set_system(s),
                           f"Ctrl+{i + 1}")
             a.setCheckable(True)
             a.setChecked(s == self.system)
@@ -820,7 +818,7 @@ class MainWindow(QMainWindow):
         self.system = system
         self.a_units[system].setChecked(True)
         files.settings().setValue("unit_system", system)
-        self.units_label.setText(f"Units: {SYSTEM_TITLES.get(system, system)}")
+        self.units_label.setText(f"Units: {units.SYSTEM_TITLES.get(system, system)}")
         if self.current_id is not None:
             self.select_case(self.current_id)
 
@@ -829,7 +827,7 @@ class MainWindow(QMainWindow):
         name = self.doc.path.name if self.doc.path else "untitled project"
         self.setWindowTitle(f"{name}[*] — Ebullio")
         self.setWindowModified(self.doc.dirty)
-        self.units_label.setText(f"Units: {SYSTEM_TITLES.get(self.system, self.system)}")
+        self.units_label.setText(f"Units: {units.SYSTEM_TITLES.get(self.system, self.system)}")
 
     def maybe_keep_changes(self) -> bool:
         """True when it is fine to drop the open project (saved, discarded or nothing to lose)."""

@@ -11,6 +11,8 @@ from __future__ import annotations
 import math
 from functools import cache
 
+from rating.catalogue import QUANTITIES
+
 SYSTEMS = ("SI", "metric", "US")
 SYSTEM_TITLES = {"SI": "SI", "metric": "Metric", "US": "US customary"}
 
@@ -46,11 +48,8 @@ _UNITS = {
 # Quantities shown as they are stored, whatever the system.
 _PLAIN = {"dimensionless": "–", "fraction": "–", "percent": "%", "count": "", "angle": "°",
           "text": "", "choice": "", "flag": ""}
-_SI = {"length": "m", "diameter": "m", "area": "m**2", "pressure": "Pa",
-       "pressure_difference": "Pa", "temperature": "K", "temperature_difference": "K",
-       "mass_flow": "kg/s", "mass_flux": "kg/m**2/s", "power": "W", "heat_flux": "W/m**2",
-       "htc": "W/m**2/K", "fouling_resistance": "m**2*K/W", "conductivity": "W/m/K",
-       "velocity": "m/s", "density": "kg/m**3", "momentum_flux": "kg/m/s**2"}
+# The SI unit of each converted quantity, as the catalogue gives it, in pint's spelling.
+_SI = {q: QUANTITIES[q].replace("^", "**") for q in _UNITS}
 
 
 @cache

@@ -45,6 +45,10 @@ QUANTITIES = {
     "choice": "", "flag": "",
 }
 
+#: What each exchanger type is called wherever it is named (the window, the report).
+TYPE_TITLES = {"evaporator": "in-tube evaporator", "thermosiphon": "vertical thermosiphon reboiler",
+               "kettle": "kettle reboiler"}
+
 #: Groups of the datasheet, in the order an engineer copies one.
 GROUPS = (
     ("service", "Service and question"), ("boiling", "Boiling side"),

@@ -16,7 +16,8 @@ from dataclasses import dataclass, field
 from pathlib import Path
 
 from rating import __version__ as ebullio_version
-from rating.catalogue import (GROUPS, INPUTS, SUMMARY, applies, case_to_draft, get_value,
+from rating.catalogue import (GROUPS, INPUTS, SUMMARY, TYPE_TITLES, applies, case_to_draft,
+                              get_value,
                               method_choices, vendor_label)
 from rating.caution import CAUTION, SCOPE
 from rating.vendor import TOLERANCE_BASIS, compare, describe, deviation_text, tolerance_text
@@ -29,8 +30,7 @@ from .figures import case_figures, png, spread_figure, spread_reference
 _DUTY_CHECK_KEYS = ("required_duty_W", "performance_duty_W", "required_area_m2",
                     "u_required_W_m2K", "over_design_pct", "over_surface_pct")
 
-TYPE_TITLES = {"evaporator": "In-tube evaporator", "thermosiphon": "Vertical thermosiphon reboiler",
-               "kettle": "Kettle reboiler"}
+
 
 STYLE = """
 body { font-size: 9pt; color: #000000; }
@@ -383,7 +383,7 @@ def build(project, cases, results, units: str, source_path=None, when=None,
     for case, result, cmp in zip(cases, results, comparisons):
         vend = f"{cmp.verdict} ({vendor_label(cmp.deciding)})" if cmp and cmp.deciding else \
             (cmp.verdict if cmp else "none")
-        glance.append(f"<td>{esc(case.name)}</td><td>{esc(TYPE_TITLES.get(case.type, case.type))}"
+        glance.append(f"<td>{esc(case.name)}</td><td>{esc(TYPE_TITLES.get(case.type, case.type).capitalize())}"
                       f"</td><td>{esc(rating_verdict(case, result, units))}</td><td>{esc(vend)}</td>")
     rep.add(Table('<th width="26%">Case</th><th width="17%">Type</th><th width="39%">Verdict</th>'
                   '<th width="18%">Vendor\'s figures</th>', glance))
@@ -391,7 +391,7 @@ def build(project, cases, results, units: str, source_path=None, when=None,
     for i, (case, result, cmp) in enumerate(zip(cases, results, comparisons), 1):
         rep.add(f"<h1{BREAK}>{esc(case.name)}</h1>")
         question = "area for duty" if case.question == "area_for_duty" else "performance"
-        rep.add(f"<p>{esc(TYPE_TITLES.get(case.type, case.type))}; question: {question}; "
+        rep.add(f"<p>{esc(TYPE_TITLES.get(case.type, case.type).capitalize())}; question: {question}; "
                 f"status: {esc(result.status)}</p>")
         rep.keep("h2", "Verdict")
         rep.add(f'<p class="verdict">{esc(rating_verdict(case, result, units))}</p>')
