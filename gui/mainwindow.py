@@ -168,7 +168,18 @@ class MainWindow(QMainWindow):
         self.pages.addWidget(work)
         self.setCentralWidget(self.pages)
 
-        # the datasheet column
+        work.addWidget(self._datasheet_column())
+        work.addWidget(self._answer_column())
+        work.insertWidget(0, self._case_column())
+        for i, stretch in enumerate((0, 1, 2)):   # a wide screen widens the datasheet too
+            work.setStretchFactor(i, stretch)
+        self.work = work
+
+        self.units_label = QLabel("")
+        self.statusBar().addPermanentWidget(self.units_label)
+
+    def _datasheet_column(self) -> QWidget:
+        """Title, the drawing of the unit, and the datasheet of the chosen case."""
         sheet = QWidget()
         sl = QVBoxLayout(sheet)
         sl.setContentsMargins(4, 4, 0, 0)
@@ -183,9 +194,12 @@ class MainWindow(QMainWindow):
         self.form_stack = QStackedWidget()
         sl.addWidget(self.form_stack, 1)
         sheet.setMinimumWidth(360)
-        work.addWidget(sheet)
+        return sheet
 
-        # the answer column
+
+    def _answer_column(self) -> QWidget:
+        """The verdict, progress and comparison choice, key figures and warnings, the
+        result tabs, and the caution."""
         answer = QWidget()
         al = QVBoxLayout(answer)
         al.setContentsMargins(0, 4, 4, 0)
@@ -199,6 +213,17 @@ class MainWindow(QMainWindow):
         f.setPointSizeF(f.pointSizeF() * 1.1)
         self.verdict.setFont(f)
         al.addWidget(self.verdict)
+        al.addLayout(self._answer_bar())
+        al.addWidget(self._results_area(), 1)
+        self.caution = QLabel(CAUTION_SHORT)
+        self.caution.setObjectName("caution")
+        self.caution.setStyleSheet("color: #555555;")
+        self.caution.setWordWrap(True)
+        al.addWidget(self.caution)
+        return answer
+
+    def _answer_bar(self) -> QHBoxLayout:
+        """Progress and Stop (shown for a rating that takes a while), and 'Compare with'."""
         bar = QHBoxLayout()
         self.progress = QProgressBar()
         self.progress.setRange(0, 100)
@@ -226,8 +251,11 @@ class MainWindow(QMainWindow):
         self.compare_box.setMinimumContentsLength(18)
         self.compare_box.setSizeAdjustPolicy(QComboBox.AdjustToMinimumContentsLengthWithIcon)
         bar.addWidget(self.compare_box)
-        al.addLayout(bar)
+        return bar
 
+
+    def _results_area(self) -> QSplitter:
+        """Key figures and warnings above the tabs of plots, comparison and studies."""
         split = QSplitter(Qt.Vertical)
         split.setChildrenCollapsible(False)
         top = QSplitter(Qt.Horizontal)
@@ -274,15 +302,10 @@ class MainWindow(QMainWindow):
         split.setStretchFactor(0, 0)
         split.setStretchFactor(1, 1)
         split.setSizes([190, 560])
-        al.addWidget(split, 1)
-        self.caution = QLabel(CAUTION_SHORT)
-        self.caution.setObjectName("caution")
-        self.caution.setStyleSheet("color: #555555;")
-        self.caution.setWordWrap(True)
-        al.addWidget(self.caution)
-        work.addWidget(answer)
+        return split
 
-        # the case list, left of the datasheet
+    def _case_column(self) -> QWidget:
+        """The project's cases, with the buttons that add, copy, move and delete them."""
         cases = QWidget()
         cases.setObjectName("cases-panel")
         bl = QVBoxLayout(cases)
@@ -302,13 +325,7 @@ class MainWindow(QMainWindow):
         self.case_buttons2 = QHBoxLayout()
         self.case_buttons2.setSpacing(2)
         bl.addLayout(self.case_buttons2)
-        work.insertWidget(0, cases)
-        for i, stretch in enumerate((0, 1, 2)):   # a wide screen widens the datasheet too
-            work.setStretchFactor(i, stretch)
-        self.work = work
-
-        self.units_label = QLabel("")
-        self.statusBar().addPermanentWidget(self.units_label)
+        return cases
 
     def _act(self, menu, text, slot, shortcut=None, tip=""):
         a = QAction(text, self)
