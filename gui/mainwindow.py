@@ -340,6 +340,18 @@ class MainWindow(QMainWindow):
 
     def _actions(self):
         mb = self.menuBar()
+        self._file_menu(mb)
+        self._edit_menu(mb)
+        self._case_menu(mb)
+        self._case_buttons()
+        self._rating_menu(mb)
+        self._view_menu(mb)
+        self.report_menu = mb.addMenu("Re&port")
+        self._install_report()
+        self._help_menu(mb)
+
+    def _file_menu(self, mb):
+        """File: projects, samples, recent files, saving, the plots as pictures."""
         m = mb.addMenu("&File")
         self.a_new = self._act(m, "&New project", self.new_project, QKeySequence.New)
         self.a_open = self._act(m, "&Open…", self.open_dialog, QKeySequence.Open)
@@ -357,6 +369,8 @@ class MainWindow(QMainWindow):
         m.addSeparator()
         self._act(m, "&Quit", self.close, QKeySequence.Quit)
 
+    def _edit_menu(self, mb):
+        """Edit: undo and redo, the verdict to the clipboard, moving between areas."""
         m = mb.addMenu("&Edit")
         self.a_undo = self.doc.undo.createUndoAction(self, "&Undo")
         self.a_undo.setShortcut(QKeySequence.Undo)
@@ -373,6 +387,8 @@ class MainWindow(QMainWindow):
         self._act(m, "Go to &cases", lambda: self.case_list.setFocus(), "F7")
         self._act(m, "Go to &warnings", lambda: self.warnings.setFocus(), "F8")
 
+    def _case_menu(self, mb):
+        """Case: new, duplicate, rename, move, delete, next and previous."""
         m = mb.addMenu("&Case")
         self.a_new_case = {}
         for t, key in (("evaporator", "Ctrl+Shift+E"), ("thermosiphon", "Ctrl+Shift+T"),
@@ -388,6 +404,9 @@ class MainWindow(QMainWindow):
         m.addSeparator()
         self._act(m, "&Next case", lambda: self._step_case(1), "Ctrl+PgDown")
         self._act(m, "&Previous case", lambda: self._step_case(-1), "Ctrl+PgUp")
+
+    def _case_buttons(self):
+        """The buttons under the case list: the Case menu's commands, two short rows."""
         add_menu = QMenu(self)
         for a in self.a_new_case.values():
             add_menu.addAction(a)
@@ -411,6 +430,8 @@ class MainWindow(QMainWindow):
         self.case_buttons.addStretch(1)
         second.addStretch(1)
 
+    def _rating_menu(self, mb):
+        """Rating: rate now or all, stop, re-rate while typing."""
         m = mb.addMenu("&Rating")
         self.a_rate = self._act(m, "&Rate now", self.rate_current, "F5")
         self.a_rate_all = self._act(m, "Rate &all cases", self.runner.rate_all, "Shift+F5",
@@ -420,6 +441,8 @@ class MainWindow(QMainWindow):
         self.a_live.setCheckable(True)
         self.a_live.setChecked(True)
 
+    def _view_menu(self, mb):
+        """View: the unit system, the result tabs, the comparison, zoom and pan."""
         m = mb.addMenu("&View")
         group = QActionGroup(self)
         self.a_units = {}
@@ -439,9 +462,8 @@ class MainWindow(QMainWindow):
         self._act(m, "&Zoom and pan the plots…", self.zoom_plots, "F9",
                   "Open the plots shown in a window of their own, with zoom, pan and save")
 
-        self.report_menu = mb.addMenu("Re&port")
-        self._install_report()
-
+    def _help_menu(self, mb):
+        """Help: the methods of this rating, every warning, the caution, about."""
         m = mb.addMenu("&Help")
         self._act(m, "&Methods of this rating", self.show_methods, QKeySequence.HelpContents)
         self._act(m, "&Warnings Ebullio can give", lambda: self._text_dialog(
