@@ -105,6 +105,11 @@ class Runner(QObject):
         if path == "name":
             return
         st = self.state(entry_id)
+        if path == "vendor" or path.startswith("vendor."):
+            # a vendor's stated figures do not enter the rating: the result stands, and
+            # the comparison is made afresh from it and the figures as they are now
+            self.stateChanged.emit(entry_id)
+            return
         self._stop(entry_id)
         st.stale = st.result is not None
         st.status = STALE if st.result is not None else NOT_RATED

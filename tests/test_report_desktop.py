@@ -24,10 +24,12 @@ def test_vendor_figures_are_edited_in_the_form_and_compared(window, qtbot):
     _action(w, "Add vendor figures").trigger()
     assert isinstance(w.doc.entry(w.current_id).draft.get("vendor"), dict)
     form = w.current_form()
-    with qtbot.waitSignal(w.runner.resultArrived, timeout=RATING_TIMEOUT_MS,
-                          check_params_cb=lambda i: i == w.current_id):
-        set_text(qtbot, w, "vendor.u_service", f"{1.5 * u_service:.0f}")
-        form.editor("vendor.u_service").editingFinished.emit()
+    rated = st.result
+    set_text(qtbot, w, "vendor.u_service", f"{1.5 * u_service:.0f}")
+    form.editor("vendor.u_service").editingFinished.emit()
+    # a vendor figure does not enter the rating: no new rating, the result is not stale
+    st = w.runner.state(w.current_id)
+    assert st.status != "rating" and not st.stale and st.result is rated
     assert w.doc.entry(w.current_id).draft["vendor"]["u_service"] == pytest.approx(
         1.5 * u_service, abs=1.0)
     from gui.report.desktop import show_comparison
