@@ -13,17 +13,25 @@ from gui_helpers import (QUICK, RATING_TIMEOUT_MS, make_window, open_rated, plot
 from rating import catalogue
 
 
-def test_a_crash_leaves_an_autosave_that_the_next_start_offers(qtbot, scratch, tmp_path):
+def _edited_copy(qtbot, tmp_path, count):
+    """A copy of the quick sample (made once per test) opened in a new window, its tube
+    count set to ``count`` and autosaved: (window, the copy's path)."""
     import shutil
 
+    project = tmp_path / "unit.ebullio"
+    if not project.exists():
+        shutil.copy(QUICK, project)
+    w = make_window(qtbot)
+    open_rated(qtbot, w, project)
+    set_text(qtbot, w, "tubes.count", count)
+    w.autosave_now()
+    return w, project
+
+
+def test_a_crash_leaves_an_autosave_that_the_next_start_offers(qtbot, scratch, tmp_path):
     from gui import files
 
-    project = tmp_path / "unit.ebullio"
-    shutil.copy(QUICK, project)
-    first = make_window(qtbot)
-    open_rated(qtbot, first, project)
-    set_text(qtbot, first, "tubes.count", "133")
-    first.autosave_now()
+    first, project = _edited_copy(qtbot, tmp_path, "133")
     assert files.pending_autosaves(project) == []       # its session runs
     # the session dies here: no close, no save; its autosave stays on disk
     first.runner.shutdown()
@@ -48,17 +56,11 @@ def test_a_crash_leaves_an_autosave_that_the_next_start_offers(qtbot, scratch, t
 
 def test_an_autosave_older_than_its_file_is_not_offered(qtbot, scratch, tmp_path):
     import os
-    import shutil
     import time
 
     from gui import files
 
-    project = tmp_path / "unit.ebullio"
-    shutil.copy(QUICK, project)
-    w = make_window(qtbot)
-    open_rated(qtbot, w, project)
-    set_text(qtbot, w, "tubes.count", "134")
-    w.autosave_now()
+    w, project = _edited_copy(qtbot, tmp_path, "134")
     later = time.time() + 60
     os.utime(project, (later, later))       # the file was saved after the autosave
     assert files.pending_autosaves(project) == []
@@ -164,17 +166,10 @@ def test_a_failed_rating_says_why_and_keeps_the_last_good_result_stale(window, q
 
 
 def test_two_windows_on_one_file_keep_their_own_autosaves(qtbot, scratch, tmp_path):
-    import shutil
-
     from gui import files
 
-    project = tmp_path / "unit.ebullio"
-    shutil.copy(QUICK, project)
-    first, second = make_window(qtbot), make_window(qtbot)
-    for w, count in ((first, "131"), (second, "137")):
-        open_rated(qtbot, w, project)
-        set_text(qtbot, w, "tubes.count", count)
-        w.autosave_now()
+    first, project = _edited_copy(qtbot, tmp_path, "131")
+    second, _ = _edited_copy(qtbot, tmp_path, "137")
     assert first.autosave_file != second.autosave_file
     kept = {files.read_autosave(w.autosave_file)["drafts"][0]["tubes"]["count"]
             for w in (first, second)}
@@ -191,18 +186,12 @@ def test_two_windows_on_one_file_keep_their_own_autosaves(qtbot, scratch, tmp_pa
 
 def test_an_autosave_of_a_running_process_is_offered_only_once_it_ends(qtbot, scratch, tmp_path):
     import json
-    import shutil
     import subprocess
     import sys
 
     from gui import files
 
-    project = tmp_path / "unit.ebullio"
-    shutil.copy(QUICK, project)
-    w = make_window(qtbot)
-    open_rated(qtbot, w, project)
-    set_text(qtbot, w, "tubes.count", "139")
-    w.autosave_now()
+    w, project = _edited_copy(qtbot, tmp_path, "139")
     other = subprocess.Popen([sys.executable, "-c", "import time; time.sleep(60)"])
     try:
         data = json.loads(w.autosave_file.read_text(encoding="utf-8"))
