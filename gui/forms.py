@@ -201,8 +201,7 @@ class Row:
         key = (system, QLocale().name())
         if self._tip_key != key:        # the same for every keystroke: made once per units
             self._tip_key = key
-            label = units.unit_label(f.quantity, system)
-            self.unit.setText("" if label in ("-", "–") else label)
+            self.unit.setText(units.unit_text(f.quantity, system))
             tip = [f.help] if f.help else []
             rng = _range_text(f, system)
             if rng:

@@ -35,16 +35,11 @@ def summary_keys(result) -> list[str]:
 
 def value_text(result, key, system) -> str:
     v = result.summary.get(key) if result is not None else None
-    if v is None:
-        return NOT_COMPUTED
-    if isinstance(v, str):
-        return v
-    return units.format_number(units.to_display(v, catalogue.SUMMARY[key].quantity, system))
+    return units.number_text(v, catalogue.SUMMARY[key].quantity, system)
 
 
 def unit_text(key, system) -> str:
-    u = units.unit_label(catalogue.SUMMARY[key].quantity, system)
-    return "" if u in ("-", "–") else u
+    return units.unit_text(catalogue.SUMMARY[key].quantity, system)
 
 
 def _item(text, right=False, grey=False, tip=""):

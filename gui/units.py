@@ -103,6 +103,21 @@ def from_display(value, quantity: str, system: str):
     return (float(value) - offset) / scale
 
 
+def unit_text(quantity: str, system: str) -> str:
+    """The unit beside a number in a table or a field: blank for a pure number."""
+    label = unit_label(quantity, system)
+    return "" if label in ("-", "–") else label
+
+
+def number_text(value_si, quantity: str, system: str, digits: int = 4) -> str:
+    """A value in display units without its unit ("not computed" for None)."""
+    if value_si is None:
+        return "not computed"
+    if isinstance(value_si, str):
+        return value_si
+    return format_number(to_display(value_si, quantity, system), digits)
+
+
 def format_value(value_si, quantity: str, system: str, digits: int = 4) -> str:
     """``"1,234 kW"``-style text with ``digits`` significant figures; None is "not computed"."""
     if value_si is None or (isinstance(value_si, float) and not math.isfinite(value_si)):

@@ -14,8 +14,8 @@ from .warning_text import in_units
 
 def amount(value, quantity, system, digits=4) -> str:
     """'1,234 kW': a value in the unit system with its unit (none for pure numbers)."""
-    if units.unit_label(quantity, system) in ("-", "–", ""):
-        return units.format_number(units.to_display(value, quantity, system), digits)
+    if not units.unit_text(quantity, system):
+        return units.number_text(value, quantity, system, digits)
     return units.format_value(value, quantity, system, digits)
 
 

@@ -74,6 +74,6 @@ def _default(limit: dict, system: str) -> str:
     value, quantity = limit["default"], limit["quantity"]
     if value is None:
         return "off"
-    if units.unit_label(quantity, system) in ("", "–"):
+    if not units.unit_text(quantity, system):
         return f"{value:g}"
     return html.escape(units.format_value(value, quantity, system))

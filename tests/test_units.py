@@ -56,3 +56,13 @@ def test_four_significant_figures_with_grouping():
     # large figures: the whole part, grouped, never an exponent a reader must decode
     assert units.format_number(21168472.0) == "21,168,472"
     assert units.format_number(1234.5) == "1,234"
+
+
+def test_a_tables_number_and_unit_text():
+    # one place for what every table shows: a pure number has no unit beside it, a value
+    # not computed says so (never 0), and the number is in the table's units
+    from gui.units import number_text, unit_text
+
+    assert unit_text("fraction", "US") == "" and unit_text("pressure", "US") == "psia"
+    assert number_text(None, "pressure", "US") == "not computed"
+    assert number_text(101325.0, "pressure", "US") == "14.70"   # 1 atm = 14.696 psi (NIST SP 811)

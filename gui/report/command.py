@@ -31,11 +31,8 @@ class DisplayUnits:
     def value(self, value, quantity: str) -> tuple[str, str]:
         from gui import units
 
-        label = units.unit_label(quantity, self.system)
-        label = "" if label in ("-", "–") else label
-        if value is None or isinstance(value, str):
-            return units.format_number(value), label
-        return units.format_number(units.to_display(value, quantity, self.system)), label
+        return (units.number_text(value, quantity, self.system),
+                units.unit_text(quantity, self.system))
 
     def warning(self, warning) -> str:
         from gui.warning_text import warning_text

@@ -21,7 +21,7 @@ from rating.catalogue import (GROUPS, INPUTS, SUMMARY, TYPE_TITLES, applies, cas
                               method_choices, vendor_label)
 from rating.caution import CAUTION, SCOPE
 from rating.vendor import TOLERANCE_BASIS, compare, describe, deviation_text, tolerance_text
-from gui.units import SYSTEM_TITLES, format_number, to_display, unit_label
+from gui.units import SYSTEM_TITLES, format_number, number_text, unit_text
 from gui.warning_text import warning_text
 
 from .figures import case_figures, png, spread_figure, spread_reference
@@ -127,18 +127,8 @@ def sha256(path) -> str:
     return digest.hexdigest()
 
 
-def _num(value, quantity: str, units: str) -> str:
-    """A value in display units, four significant figures ("not computed" for None)."""
-    if value is None:
-        return "not computed"
-    if isinstance(value, str):
-        return value
-    return format_number(to_display(value, quantity, units))
-
-
-def _unit(quantity: str, units: str) -> str:
-    label = unit_label(quantity, units)
-    return "" if label == "–" else label
+_num = number_text      # a value in display units, four significant figures
+_unit = unit_text       # its unit, blank for a pure number
 
 
 def rating_verdict(case, result, units: str) -> str:
